@@ -1,0 +1,8 @@
+// Used by npm start: migrations run when the database opens; the demo scenario is added only
+// to an empty database, so a real installation is never touched.
+import { isEmpty, seedDemo } from '$lib/server/seed';
+
+if (isEmpty()) {
+	console.log('Empty database: adding the demo scenario (marked as demo data).');
+	await seedDemo();
+}

@@ -1,0 +1,3 @@
+export const dev = false;
+export const building = false;
+export const browser = false;

@@ -1,0 +1,24 @@
+import Database from 'better-sqlite3';
+import { drizzle } from 'drizzle-orm/better-sqlite3';
+import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
+import { mkdirSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
+import * as schema from './schema';
+
+export type DB = ReturnType<typeof openDatabase>['db'];
+
+/**
+ * Opens the SQLite file with our pragmas. WAL with synchronous=NORMAL: every commit is
+ * consistent, and a power loss may lose only the last commits (never corrupts).
+ */
+export function openDatabase(path: string, options: { migrationsFolder?: string } = {}) {
+	if (path !== ':memory:') mkdirSync(dirname(resolve(path)), { recursive: true });
+	const sqlite = new Database(path, { timeout: 5000 });
+	sqlite.pragma('journal_mode = WAL');
+	sqlite.pragma('synchronous = NORMAL');
+	sqlite.pragma('foreign_keys = ON');
+	sqlite.pragma('busy_timeout = 5000');
+	const db = drizzle(sqlite, { schema });
+	migrate(db, { migrationsFolder: options.migrationsFolder ?? resolve('drizzle') });
+	return { sqlite, db };
+}

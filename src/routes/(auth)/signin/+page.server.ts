@@ -1,0 +1,39 @@
+import { fail, redirect } from '@sveltejs/kit';
+import { superValidate, message } from 'sveltekit-superforms';
+import { zod4 } from 'sveltekit-superforms/adapters';
+import { dev } from '$app/environment';
+import { signInSchema } from '$lib/schemas/auth';
+import { checkCredentials } from '$lib/server/accounts';
+import { createSession, invalidateSession, setSessionCookie } from '$lib/server/auth';
+import { isLimited } from '$lib/server/rate-limit';
+import { safeNext } from '$lib/server/safe-next';
+import type { Actions, PageServerLoad } from './$types';
+
+const GENERIC_SIGNIN_ERROR = 'That e-mail and password do not match an account.';
+
+export const load: PageServerLoad = async ({ locals, url }) => {
+	if (locals.user) redirect(303, safeNext(url.searchParams.get('next')));
+	const form = await superValidate(zod4(signInSchema));
+	form.data.next = safeNext(url.searchParams.get('next'), '');
+	return { form };
+};
+
+export const actions: Actions = {
+	default: async (event) => {
+		const form = await superValidate(event.request, zod4(signInSchema));
+		const { password } = form.data;
+		form.data.password = '';
+		if (await isLimited('signIn', event)) {
+			return message(form, 'Too many sign-in attempts. Wait a minute and try again.', { status: 429 });
+		}
+		if (!form.valid) return fail(400, { form });
+		const user = await checkCredentials(form.data.email, password);
+		if (!user) return message(form, GENERIC_SIGNIN_ERROR, { status: 400 });
+
+		// A fresh session at every sign-in; the one this browser had before ends.
+		if (event.locals.session) invalidateSession(event.locals.session.id);
+		const { token, session } = createSession(user.id);
+		setSessionCookie(event.cookies, token, session, !dev);
+		redirect(303, safeNext(form.data.next, user.emailVerifiedAt ? '/designs' : '/account'));
+	}
+};

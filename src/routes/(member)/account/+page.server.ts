@@ -1,0 +1,33 @@
+import { fail } from '@sveltejs/kit';
+import { eq } from 'drizzle-orm';
+import { db } from '$lib/server/db';
+import { users } from '$lib/server/db/schema';
+import { issueEmailToken } from '$lib/server/accounts';
+import { sendVerificationMail } from '$lib/server/account-mail';
+import { requireUser } from '$lib/server/guards';
+import { isLimited } from '$lib/server/rate-limit';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = () => {
+	const user = requireUser();
+	const row = db.select().from(users).where(eq(users.id, user.id)).get()!;
+	return {
+		account: {
+			email: row.email,
+			displayName: row.displayName,
+			role: row.role,
+			emailVerified: row.emailVerifiedAt !== null,
+			createdAt: row.createdAt.toISOString()
+		}
+	};
+};
+
+export const actions: Actions = {
+	resend: async (event) => {
+		const user = requireUser();
+		if (user.emailVerified) return { resent: false, message: 'Your address is already confirmed.' };
+		if (await isLimited('reset', event)) return fail(429, { message: 'Too many requests; wait a few minutes.' });
+		await sendVerificationMail(user.email, user.displayName, issueEmailToken(user.id, 'verify_email'));
+		return { resent: true, message: 'A new confirmation link is on its way.' };
+	}
+};

@@ -1,0 +1,35 @@
+import adapter from '@sveltejs/adapter-node';
+import { vitePreprocess } from '@sveltejs/vite-plugin-svelte';
+import { mdsvex } from 'mdsvex';
+
+/** @type {import('@sveltejs/kit').Config} */
+const config = {
+	extensions: ['.svelte', '.md'],
+	preprocess: [vitePreprocess(), mdsvex({ extensions: ['.md'] })],
+	compilerOptions: {
+		// mdsvex emits legacy `$$props`; everything else runs in runes mode.
+		runes: ({ filename }) =>
+			filename.endsWith('.md') || filename.split(/[/\\]/).includes('node_modules') ? undefined : true
+	},
+	kit: {
+		adapter: adapter(),
+		alias: { $content: 'content' },
+		csp: {
+			mode: 'auto',
+			directives: {
+				'default-src': ['self'],
+				'script-src': ['self'],
+				'style-src': ['self', 'unsafe-inline'],
+				'img-src': ['self', 'data:', 'blob:'],
+				'font-src': ['self'],
+				'connect-src': ['self'],
+				'object-src': ['none'],
+				'base-uri': ['none'],
+				'frame-ancestors': ['none'],
+				'form-action': ['self']
+			}
+		}
+	}
+};
+
+export default config;
