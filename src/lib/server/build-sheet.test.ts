@@ -26,13 +26,17 @@ interface Op {
 /** Operators of a page's content streams, each with the marked-content tag it sits in. */
 function operators(page: PDFPage): Op[] {
 	const contents = page.node.Contents();
-	const streams = contents instanceof PDFRawStream ? [contents] : ((contents as PDFArray).asArray() as unknown[]);
+	const streams =
+		contents instanceof PDFRawStream ? [contents] : ((contents as PDFArray).asArray() as unknown[]);
 	let source = '';
 	for (const ref of streams) {
 		const stream = ref instanceof PDFRawStream ? ref : page.doc.context.lookup(ref as never);
-		source += Buffer.from(decodePDFRawStream(stream as PDFRawStream).decode()).toString('latin1') + '\n';
+		source +=
+			Buffer.from(decodePDFRawStream(stream as PDFRawStream).decode()).toString('latin1') + '\n';
 	}
-	const tokens = source.match(/<[0-9A-Fa-f\s]*>|\/[^\s/[\]<>()]+|\[|\]|\((?:\\.|[^\\)])*\)|[^\s[\]<>/()]+/g) ?? [];
+	const tokens =
+		source.match(/<[0-9A-Fa-f\s]*>|\/[^\s/[\]<>()]+|\[|\]|\((?:\\.|[^\\)])*\)|[^\s[\]<>/()]+/g) ??
+		[];
 	const ops: Op[] = [];
 	const tags: string[] = [];
 	let args: string[] = [];
@@ -50,14 +54,25 @@ function operators(page: PDFPage): Op[] {
 const rectWidths = (ops: Op[], tag: string) =>
 	ops.filter((o) => o.op === 're' && o.tag === `/${tag}`).map((o) => Number(o.args[2]));
 
-/** Text shown with Tj, decoded from pdf-lib's hex strings (WinAnsi; ASCII range reads as is). */
+// cp1252 bytes 0x80-0x9F (the rest of WinAnsi is Latin-1); Node's TextDecoder treats them as C1.
+const CP1252_HIGH = '€\u0081‚ƒ„…†‡ˆ‰Š‹Œ\u008dŽ\u008f\u0090‘’“”•–—˜™š›œ\u009džŸ';
+const decodeHex = (hex: string) =>
+	[...Buffer.from(hex.slice(1, -1), 'hex')]
+		.map((b) => (b >= 0x80 && b <= 0x9f ? CP1252_HIGH[b - 0x80] : String.fromCharCode(b)))
+		.join('');
+/** Text shown with Tj, decoded from pdf-lib's hex strings (WinAnsi = cp1252). */
 const shownText = (ops: Op[]) =>
 	ops
 		.filter((o) => o.op === 'Tj')
-		.map((o) => Buffer.from(o.args[0].slice(1, -1), 'hex').toString('latin1'))
+		.map((o) => decodeHex(o.args[0]))
 		.join('\n');
 
-const row = (key: string, label: string, value_mm: number | null, extra: Partial<BuildSheetRow> = {}): BuildSheetRow => ({
+const row = (
+	key: string,
+	label: string,
+	value_mm: number | null,
+	extra: Partial<BuildSheetRow> = {}
+): BuildSheetRow => ({
 	key,
 	label,
 	kind: 'resonant',
@@ -114,7 +129,9 @@ describe('renderBuildSheet', () => {
 		expect(widths).toHaveLength(2);
 		expect(widths[0]).toBeCloseTo(PT_50MM, 2);
 		expect(widths[1]).toBeCloseTo(PT_2IN, 2);
-		expect(shownText(ops)).toContain('Print at 100 % (no fit-to-page). Check: this bar must measure 50.0 mm.');
+		expect(shownText(ops)).toContain(
+			'Print at 100 % (no fit-to-page). Check: this bar must measure 50.0 mm.'
+		);
 	});
 
 	it('draws a 30.59 mm gauge as 86.71 pt and skips counts, errors and diameters', async () => {
@@ -135,7 +152,10 @@ describe('renderBuildSheet', () => {
 			diameters.push(Math.max(...xs) - Math.min(...xs));
 		}
 		// Two circles: the 25 mm disc and the 1.628 mm wire (key "wire_d"). [calc] 25 mm = 70.866 pt
-		expect(diameters.map((d) => d.toFixed(2))).toEqual([mmToPt(25).toFixed(2), mmToPt(1.628).toFixed(2)]);
+		expect(diameters.map((d) => d.toFixed(2))).toEqual([
+			mmToPt(25).toFixed(2),
+			mmToPt(1.628).toFixed(2)
+		]);
 		const lines = circle.filter((o) => o.op === 'l').map((o) => o.args.map(Number));
 		expect(lines.some(([x]) => Math.abs(x - centreX) < 0.01)).toBe(true);
 	});
@@ -143,7 +163,13 @@ describe('renderBuildSheet', () => {
 	it('lists every row in the cut list with its stock and errors, plus cautions and demo mark', async () => {
 		const { ops } = await render({ demo: true });
 		const text = shownText(ops);
-		for (const part of ['Quarter-wave arm (arm)', '30.59 mm', 'AWG 14 (1.63 mm)', 'Turns (turns)', 'lamda']) {
+		for (const part of [
+			'Quarter-wave arm (arm)',
+			'30.59 mm',
+			'AWG 14 (1.63 mm)',
+			'Turns (turns)',
+			'lamda'
+		]) {
 			expect(text).toContain(part);
 		}
 		expect(text).toContain('Target frequency: 2.45 GHz');
@@ -176,9 +202,44 @@ describe('renderBuildSheet', () => {
 		expect(rectWidths(ops, 'BwGauge')).toHaveLength(80);
 	});
 
+	it('keeps all text inside the page, even long labels and cautions', async () => {
+		const long = 'Driven element with a long descriptive label that has to wrap inside its cell';
+		const bytes = await renderBuildSheet(
+			input({
+				rows: [row('arm', long, 30.59, { display: '1 13/64', unit: 'in' }), row('boom', long, 700)],
+				units: 'in_frac',
+				cautions: ['Solder fumes: ventilate the room. '.repeat(10)]
+			})
+		);
+		const doc = await PDFDocument.load(bytes);
+		const font = await doc.embedFont(StandardFonts.Helvetica);
+		let checked = 0;
+		for (const page of doc.getPages()) {
+			const { width, height } = page.getSize();
+			let x = 0;
+			let y = 0;
+			let size = 0;
+			for (const o of operators(page)) {
+				if (o.op === 'Tf') size = Number(o.args[1]);
+				if (o.op === 'Tm') [x, y] = [Number(o.args[4]), Number(o.args[5])];
+				if (o.op !== 'Tj') continue;
+				const text = decodeHex(o.args[0]);
+				// Bold text is a little wider than regular; 2 % covers it for these strings.
+				expect(x + font.widthOfTextAtSize(text, size) * 1.02, text).toBeLessThanOrEqual(width - 18);
+				expect(x).toBeGreaterThanOrEqual(18);
+				expect(y).toBeGreaterThanOrEqual(18);
+				expect(y).toBeLessThanOrEqual(height - 18);
+				checked++;
+			}
+		}
+		expect(checked).toBeGreaterThan(20);
+	});
+
 	it('rejects input the route should never send', async () => {
 		await expect(renderBuildSheet(input({ revision: 0 }))).rejects.toThrow(BuildSheetError);
-		await expect(renderBuildSheet(input({ frequency_hz: Number.NaN }))).rejects.toThrow(/frequency/);
+		await expect(renderBuildSheet(input({ frequency_hz: Number.NaN }))).rejects.toThrow(
+			/frequency/
+		);
 	});
 });
 
@@ -195,7 +256,12 @@ describe('helpers', () => {
 
 	it('recognises diameter rows by whole key words or the label', () => {
 		const is = (key: string, label = 'x') => isDiameterRow({ key, label });
-		expect([is('wire_d'), is('disc_dia'), is('reflector_diam'), is('d')]).toEqual([true, true, true, true]);
+		expect([is('wire_d'), is('disc_dia'), is('reflector_diam'), is('d')]).toEqual([
+			true,
+			true,
+			true,
+			true
+		]);
 		expect([is('feed_depth'), is('radial_len'), is('side')]).toEqual([false, false, false]);
 		expect([is('disc', 'Disc diameter'), is('hole', 'Ø hole')]).toEqual([true, true]);
 	});

@@ -4,6 +4,8 @@ import { db } from './db';
 import { users, type Role } from './db/schema';
 import { createAccount } from './accounts';
 import { setRole } from './users';
+import { seedDesigns } from './seed-designs';
+import { resolve } from 'node:path';
 
 export const DEMO_ACCOUNTS: { email: string; displayName: string; password: string; role: Role; verified: boolean }[] = [
 	{ email: 'wren@lanternhill.example', displayName: 'Wren Okafor (demo)', password: 'demo-moderator-2026', role: 'moderator', verified: true },
@@ -29,4 +31,5 @@ export async function seedDemo(log: (line: string) => void = console.log): Promi
 		if (a.role !== 'member') setRole(null, created.id, a.role);
 		log(`demo account ${a.email} (${a.role})`);
 	}
+	seedDesigns(resolve('content/designs'), log);
 }

@@ -1,0 +1,31 @@
+import { compileTable, evaluateTable, type CompiledTable, type EvaluateOptions, type TableResult } from '$lib/rf/table';
+import { toTableDefinition, unknownCatalogues } from '$lib/rf/revision-table';
+import type { Revision } from './db/schema';
+import { contentOf } from './designs';
+import { Lru } from './lru';
+
+// Submitted revisions never change, so their compiled tables are kept; drafts are keyed by save time.
+const compiled = new Lru<string, CompiledTable>(500);
+
+function compiledFor(r: Revision): CompiledTable {
+	const key = r.state === 'draft' ? `${r.id}@${r.updatedAt.getTime()}` : r.id;
+	let t = compiled.get(key);
+	if (!t) {
+		t = compileTable(toTableDefinition(contentOf(r)));
+		compiled.set(key, t);
+	}
+	return t;
+}
+
+export function computeRevision(r: Revision, opts: EvaluateOptions): TableResult {
+	const result = evaluateTable(compiledFor(r), opts);
+	for (const { key, catalogue } of unknownCatalogues(contentOf(r))) {
+		result.rows.find((row) => row.key === key)?.warnings.push(`Unknown stock catalogue "${catalogue}"; not snapped.`);
+	}
+	return result;
+}
+
+/** Band edges for sensitivity tolerances: the revision's claimed band. */
+export function claimBand(r: Revision): [number, number] | undefined {
+	return r.claimLoHz && r.claimHiHz ? [r.claimLoHz, r.claimHiHz] : undefined;
+}

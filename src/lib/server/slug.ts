@@ -1,0 +1,12 @@
+/** A URL slug from a title: lower-case ASCII words joined by "-", at most 80 characters. */
+export function slugify(title: string): string {
+	const s = title
+		.normalize('NFKD')
+		.replace(/[\u0300-\u036f]/g, '')
+		.toLowerCase()
+		.replace(/[^a-z0-9]+/g, '-')
+		.replace(/^-+|-+$/g, '')
+		.slice(0, 80)
+		.replace(/-+$/, '');
+	return s || 'design';
+}

@@ -1,0 +1,13 @@
+import { json } from '@sveltejs/kit';
+import { apiError } from '$lib/server/api';
+import { getDesignBySlug, ownerName } from '$lib/server/designs';
+import { canRead, getRevision } from '$lib/server/revisions';
+import { revisionJson } from '$lib/server/exports';
+import type { RequestHandler } from './$types';
+
+export const GET: RequestHandler = ({ params, locals }) => {
+	const design = getDesignBySlug(params.slug);
+	const r = design ? getRevision(design.id, Number(params.n)) : null;
+	if (!design || !r || !canRead(locals.user, r)) return apiError(404, 'No such design revision.');
+	return json(revisionJson(design, r, ownerName(r.authorId)));
+};

@@ -1,0 +1,35 @@
+import { json } from '@sveltejs/kit';
+import { parseFrequency } from '$lib/rf/frequency-input';
+import { apiError } from '$lib/server/api';
+import { computeRevision } from '$lib/server/dimensions';
+import { getDesignBySlug } from '$lib/server/designs';
+import { canRead, getRevision } from '$lib/server/revisions';
+import { isLimited } from '$lib/server/rate-limit';
+import { bandFor, parseUnits } from '$lib/server/revision-view';
+import type { RequestHandler } from './$types';
+
+/** The dimension table of one revision at ?f= (Hz, or text such as "5.8 GHz"), in ?units=. */
+export const GET: RequestHandler = async (event) => {
+	const { params, url, locals } = event;
+	if (await isLimited('compute', event)) return apiError(429, 'Too many requests. Wait a minute.');
+	const design = getDesignBySlug(params.slug);
+	const r = design ? getRevision(design.id, Number(params.n)) : null;
+	if (!design || !r || !canRead(locals.user, r)) return apiError(404, 'No such design revision.');
+	const fText = url.searchParams.get('f');
+	let hz = r.designHz;
+	if (fText !== null) {
+		const parsed = parseFrequency(fText);
+		if (!parsed.ok) return apiError(400, parsed.message, { field: 'f' });
+		hz = parsed.hz;
+	}
+	const units = url.searchParams.get('units');
+	if (units !== null && parseUnits(units) !== units) {
+		return apiError(400, 'units must be mm, in or in_frac.', { field: 'units' });
+	}
+	const { band, unknown } = bandFor(r, hz, url.searchParams.get('band'));
+	if (unknown) return apiError(400, 'Unknown band preset.', { field: 'band' });
+	const result = computeRevision(r, { frequencyHz: hz, units: parseUnits(units), bandHz: band });
+	return json(result, {
+		headers: { 'cache-control': r.state === 'draft' ? 'private, no-store' : 'public, max-age=300' }
+	});
+};
