@@ -35,7 +35,7 @@ export default defineConfig({
 	},
 	projects: [{ name: 'chromium', use: { ...devices['Desktop Chrome'] } }],
 	webServer: {
-		command: 'node build',
+		command: `node ${process.env.BUILD_DIR || 'build'}`,
 		port,
 		reuseExistingServer: false,
 		timeout: 60_000,

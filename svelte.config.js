@@ -12,7 +12,9 @@ const config = {
 			filename.endsWith('.md') || filename.split(/[/\\]/).includes('node_modules') ? undefined : true
 	},
 	kit: {
-		adapter: adapter(),
+		// BUILD_DIR / KIT_OUT_DIR let parallel work build side by side; defaults are SvelteKit's own.
+		adapter: adapter({ out: process.env.BUILD_DIR || 'build' }),
+		outDir: process.env.KIT_OUT_DIR || '.svelte-kit',
 		alias: { $content: 'content' },
 		csp: {
 			mode: 'auto',

@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { DEMO, mailsTo, unique } from './helpers';
+import { BASE, DEMO, mailsTo, unique } from './helpers';
 
 test('sign-up: empty, too long, wrong type and weak passwords get field messages and write nothing', async ({ page }) => {
 	await page.goto('/signup');
@@ -61,7 +61,7 @@ test('bad, tampered and used tokens give a clear page, never a 500', async ({ pa
 	await expect(page.getByText('This link is not valid')).toBeVisible();
 	const post = await request.post('/verify', {
 		form: { token: 'forged.token' },
-		headers: { origin: 'http://localhost:4173', accept: 'text/html' }
+		headers: { origin: BASE, accept: 'text/html' }
 	});
 	expect(post.status()).toBe(400);
 });
@@ -79,9 +79,9 @@ test('a tampered session cookie counts as signed out', async ({ page, context })
 
 test('sign-in is rate limited per address and browser', async ({ playwright }) => {
 	const ctx = await playwright.request.newContext({
-		baseURL: 'http://localhost:4173',
+		baseURL: BASE,
 		userAgent: `rate-limit-probe-${Date.now()}`,
-		extraHTTPHeaders: { origin: 'http://localhost:4173', accept: 'text/html' }
+		extraHTTPHeaders: { origin: BASE, accept: 'text/html' }
 	});
 	let limited = false;
 	for (let i = 0; i < 40 && !limited; i++) {

@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { DEMO, lastLinkTo, mailsTo, signIn, unique } from './helpers';
+import { BASE, DEMO, lastLinkTo, mailsTo, signIn, unique } from './helpers';
 
 test('sign up, confirm the address from the captured mail, sign in and out', async ({ page }) => {
 	const email = `${unique('builder')}@example.org`;
@@ -120,7 +120,7 @@ test('members get 403 on moderator pages; anonymous visitors are sent to sign-in
 	// A forged role field changes nothing (mass assignment).
 	const res = await page.request.post('/moderation?/setRole', {
 		form: { userId: 'x', role: 'moderator' },
-		headers: { origin: 'http://localhost:4173', accept: 'text/html' }
+		headers: { origin: BASE, accept: 'text/html' }
 	});
 	expect(res.status()).toBe(403);
 });

@@ -49,3 +49,5 @@ export async function signIn(page: Page, who: { email: string; password: string 
 }
 
 export const unique = (prefix: string) => `${prefix}-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`;
+
+export const BASE = `http://localhost:${process.env.E2E_PORT ?? 4173}`;
