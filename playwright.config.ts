@@ -45,6 +45,7 @@ export default defineConfig({
 			DATABASE_URL: join(dataDir, 'bandwright.db'),
 			DATA_DIR: dataDir,
 			RATE_LIMIT_FACTOR: '3',
+			BODY_SIZE_LIMIT: '16M',
 			SEED_DEMO: '1'
 		}
 	},

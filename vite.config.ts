@@ -11,6 +11,8 @@ if (process.env.VITEST) Object.assign(process.env, UNIT_ENV);
 
 export default defineConfig({
 	plugins: [tailwindcss(), sveltekit()],
+	// Fonts ship as files: the CSP allows font-src 'self', not data: URLs.
+	build: { assetsInlineLimit: 0 },
 	test: {
 		include: ['src/**/*.test.ts', 'scripts/**/*.test.ts'],
 		environment: 'node',

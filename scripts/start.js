@@ -7,6 +7,7 @@ const env = { ...process.env };
 env.PORT ??= '3000';
 env.ORIGIN ??= `http://localhost:${env.PORT}`;
 env.DATABASE_URL ??= './data/bandwright.db';
+env.BODY_SIZE_LIMIT ??= '16M'; // uploads: sweeps ≤ 10 MB, images ≤ 15 MB, checked again in code
 
 function newestMtime(dir) {
 	let newest = 0;

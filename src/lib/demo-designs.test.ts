@@ -100,6 +100,10 @@ describe('demo design files', () => {
 			const t = compute(x.design);
 			expect(t.parameters.filter((p) => p.error).map((p) => p.key)).toEqual([]);
 			expect(t.rows.filter((r) => r.error).map((r) => `${r.key}: ${r.error?.message}`)).toEqual([]);
+			// Every resonant row says how closely it must be cut.
+			for (const row of x.design.rows.filter((r) => r.kind === 'resonant')) {
+				expect(row.tolerance_mm, row.key).toBeGreaterThan(0);
+			}
 			for (const row of t.rows.filter((r) => r.kind === 'resonant')) {
 				expect(row.value, row.key).not.toBeNull();
 				expect(Number.isFinite(row.value_mm ?? row.value), row.key).toBe(true);

@@ -1,5 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { bestPoint, formatSweepValue, linePath, spreadLabels, valueAxisTop } from './sweep-plot';
+import {
+	bestPoint,
+	densestSeries,
+	formatSweepValue,
+	frequencyExtent,
+	linePath,
+	spreadLabels,
+	valueAxisTop
+} from './sweep-plot';
 
 const id = (v: number) => v;
 
@@ -73,5 +81,20 @@ describe('spreadLabels', () => {
 			1
 		);
 		expect(ys).toEqual([34, 22, 10]);
+	});
+});
+
+describe('frequencyExtent and densestSeries', () => {
+	const a = { label: 'a', f_hz: [2, 3, 4], values: [1, 1, 1] };
+	const b = { label: 'b', f_hz: [1, Number.NaN, 5, 6], values: [1, 1, 1, 1] };
+
+	it('spans every series and skips non-finite frequencies', () => {
+		expect(frequencyExtent([a, b])).toEqual([1, 6]);
+		expect(frequencyExtent([])).toBeNull();
+	});
+
+	it('picks the series with the most points', () => {
+		expect(densestSeries([a, b])?.label).toBe('b');
+		expect(densestSeries([{ label: 'e', f_hz: [], values: [] }])).toBeNull();
 	});
 });

@@ -114,3 +114,23 @@ export function spreadLabels(
 	}
 	return out;
 }
+
+/** Lowest and highest finite frequency over all series; null when there is none. */
+export function frequencyExtent(series: readonly SweepSeries[]): [number, number] | null {
+	let lo = Infinity;
+	let hi = -Infinity;
+	for (const s of series)
+		for (const f of s.f_hz)
+			if (Number.isFinite(f)) {
+				lo = Math.min(lo, f);
+				hi = Math.max(hi, f);
+			}
+	return lo <= hi ? [lo, hi] : null;
+}
+
+/** The series with the most points: the cursor steps through its frequencies. */
+export function densestSeries(series: readonly SweepSeries[]): SweepSeries | null {
+	let best: SweepSeries | null = null;
+	for (const s of series) if (!best || s.f_hz.length > best.f_hz.length) best = s;
+	return best && best.f_hz.length > 0 ? best : null;
+}

@@ -1,11 +1,13 @@
 import { and, desc, eq, inArray, sql } from 'drizzle-orm';
 import { db } from './db';
 import { designs, revisions, users, type Design, type Revision } from './db/schema';
+import type { z } from 'zod';
 import { designMetaSchema, revisionContentSchema, type DesignMeta, type RevisionContent } from '$lib/schemas/design';
 import { newId } from './accounts';
 import { DomainError } from './errors';
 import { slugify } from './slug';
 import { reindexDesign } from './search';
+import { assertCompilable } from './dimensions';
 import type { SessionUser } from './auth';
 
 export type StoredContent = Omit<RevisionContent, 'notes' | 'change_note'>;
@@ -32,6 +34,15 @@ export function contentOf(r: Revision): RevisionContent {
 	return { ...(r.content as unknown as StoredContent), notes: r.notes, change_note: r.changeNote };
 }
 
+/** Schema problems are the caller's input: a 400 naming the field, never a 500. */
+export function validated<T>(schema: z.ZodType<T>, value: unknown): T {
+	const r = schema.safeParse(value);
+	if (r.success) return r.data;
+	const issue = r.error.issues[0];
+	const field = issue.path.map(String).join('.');
+	throw new DomainError(400, `${field ? field + ': ' : ''}${issue.message}`, field || undefined);
+}
+
 const RESERVED_SLUGS = ['new', 'compare', 'api', 'edit'];
 
 export function slugTaken(slug: string): boolean {
@@ -53,8 +64,9 @@ export function createDesign(
 	contentIn: RevisionContent,
 	options: { isDemo?: boolean; now?: Date } = {}
 ) {
-	const meta = designMetaSchema.parse(metaIn);
-	const content = revisionContentSchema.parse(contentIn);
+	const meta = validated(designMetaSchema, metaIn);
+	const content = validated(revisionContentSchema, contentIn);
+	assertCompilable(content);
 	const slug = meta.slug ?? slugify(meta.title);
 	if (RESERVED_SLUGS.includes(slug)) {
 		throw new DomainError(409, `"${slug}" is a reserved address; choose another.`, 'slug');
@@ -134,7 +146,7 @@ export function defaultRevision(design: Design): Revision | null {
 
 export function updateDesignMeta(user: SessionUser, design: Design, metaIn: Omit<DesignMeta, 'slug'>) {
 	if (design.ownerId !== user.id) throw new DomainError(403, 'Only the design owner can change its title and summary.');
-	const meta = designMetaSchema.omit({ slug: true }).parse(metaIn);
+	const meta = validated(designMetaSchema.omit({ slug: true }), metaIn);
 	db.update(designs)
 		.set({ ...meta, updatedAt: new Date() })
 		.where(eq(designs.id, design.id))

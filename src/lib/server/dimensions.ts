@@ -1,4 +1,6 @@
-import { compileTable, evaluateTable, type CompiledTable, type EvaluateOptions, type TableResult } from '$lib/rf/table';
+import { compileTable, evaluateTable, TableInputError, type CompiledTable, type EvaluateOptions, type TableResult } from '$lib/rf/table';
+import type { RevisionContent } from '$lib/schemas/design';
+import { DomainError } from './errors';
 import { toTableDefinition, unknownCatalogues } from '$lib/rf/revision-table';
 import type { Revision } from './db/schema';
 import { contentOf } from './designs';
@@ -28,4 +30,14 @@ export function computeRevision(r: Revision, opts: EvaluateOptions): TableResult
 /** Band edges for sensitivity tolerances: the revision's claimed band. */
 export function claimBand(r: Revision): [number, number] | undefined {
 	return r.claimLoHz && r.claimHiHz ? [r.claimLoHz, r.claimHiHz] : undefined;
+}
+
+/** Keys and sizes the engine refuses (unit names such as "mm", function names) are a 422 on that field. */
+export function assertCompilable(content: RevisionContent): void {
+	try {
+		compileTable(toTableDefinition(content));
+	} catch (e) {
+		if (e instanceof TableInputError) throw new DomainError(422, `${e.field}: ${e.message}`, e.field);
+		throw e;
+	}
 }

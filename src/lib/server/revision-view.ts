@@ -8,6 +8,8 @@ import { contentOf, getDesignBySlug, listRevisions, ownerName } from './designs'
 import { canRead, getRevision } from './revisions';
 import { claimBand, computeRevision } from './dimensions';
 import { notesHtml } from './notes';
+import { measurementsPanelData } from './measurements-panel';
+import { reviewsPanelData } from './reviews';
 
 export const UNITS: readonly Units[] = ['mm', 'in', 'in_frac'];
 
@@ -44,7 +46,12 @@ export function bandFor(r: Revision, hz: number, bandId: string | null) {
 
 /** The view state a URL asks for: ?f= (Hz or text with unit), ?units=, ?band= (preset id). */
 export function viewState(url: URL, r: Revision) {
-	const { hz, message } = parseFrequencyParam(url.searchParams.get('f'), r.designHz);
+	const parsed = parseFrequencyParam(url.searchParams.get('f'), r.designHz);
+	const message = parsed.message;
+	let hz = parsed.hz;
+	const preset = bandById(url.searchParams.get('band') ?? '');
+	// Without JavaScript a newly chosen preset arrives beside the old f: outside the preset, its centre wins.
+	if (preset && (hz < preset.lo_hz || hz > preset.hi_hz)) hz = preset.centre_hz;
 	const { band, presetId, unknown } = bandFor(r, hz, url.searchParams.get('band'));
 	return {
 		frequencyHz: hz,
@@ -99,7 +106,9 @@ export function revisionPageData(design: Design, r: Revision, url: URL, user: Se
 		rows: content.rows.map((row) => ({ key: row.key, tolerance_mm: row.tolerance_mm ?? null })),
 		table,
 		view: state,
-		history
+		history,
+		...reviewsPanelData(design, r, user),
+		...measurementsPanelData(design, r, user)
 	};
 }
 

@@ -5,9 +5,10 @@ import { revisionContentSchema, type RevisionContent } from '$lib/schemas/design
 import { newId } from './accounts';
 import { DomainError } from './errors';
 import { audit } from './audit';
-import { contentOf, revisionColumns } from './designs';
+import { contentOf, revisionColumns, validated } from './designs';
 import { reindexDesign } from './search';
-import { computeRevision } from './dimensions';
+import { assertCompilable, computeRevision } from './dimensions';
+import { notifySubmitted } from './notify';
 import type { SessionUser } from './auth';
 
 export function getRevision(designId: string, number: number): Revision | null {
@@ -39,7 +40,8 @@ function assertEditable(user: SessionUser, r: Revision): void {
 }
 
 export function saveDraft(user: SessionUser, revisionId: string, contentIn: RevisionContent): Revision {
-	const content = revisionContentSchema.parse(contentIn);
+	const content = validated(revisionContentSchema, contentIn);
+	assertCompilable(content);
 	return db.transaction((tx) => {
 		const r = tx.select().from(revisions).where(eq(revisions.id, revisionId)).get();
 		if (!r) throw new DomainError(404, 'No such revision.');
@@ -81,6 +83,7 @@ export function submitRevision(user: SessionUser, revisionId: string, now = new 
 		if (!row) throw new DomainError(409, 'This revision is no longer a draft.');
 		tx.update(designs).set({ updatedAt: now }).where(eq(designs.id, r.designId)).run();
 		audit({ actorId: user.id, action: 'revision.submit', targetType: 'revision', targetId: r.id, details: { number: r.number } }, tx);
+		notifySubmitted(row, tx);
 		return row;
 	});
 	reindexDesign(r.designId);

@@ -5,6 +5,7 @@ import { users, type Role } from './db/schema';
 import { createAccount } from './accounts';
 import { setRole } from './users';
 import { seedDesigns } from './seed-designs';
+import { seedReviews } from './seed-reviews';
 import { resolve } from 'node:path';
 
 export const DEMO_ACCOUNTS: { email: string; displayName: string; password: string; role: Role; verified: boolean }[] = [
@@ -32,4 +33,6 @@ export async function seedDemo(log: (line: string) => void = console.log): Promi
 		log(`demo account ${a.email} (${a.role})`);
 	}
 	seedDesigns(resolve('content/designs'), log);
+	seedReviews(log);
+	await (await import('./seed-measurements')).seedMeasurements(log);
 }

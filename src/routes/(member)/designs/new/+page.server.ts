@@ -24,7 +24,8 @@ export const actions: Actions = {
 		const f = parseFrequency(form.data.frequency);
 		if (!f.ok) return setError(form, 'frequency', f.message);
 		try {
-			const { slug } = createDesign(user, { ...form.data, slug: form.data.slug || undefined }, starterContent(f.hz));
+			const { frequency: _f, slug: wanted, ...meta } = form.data;
+			const { slug } = createDesign(user, { ...meta, slug: wanted || undefined }, starterContent(f.hz));
 			redirect(303, `/designs/${slug}/r/1/edit`);
 		} catch (e) {
 			if (e instanceof DomainError && e.field === 'slug') return setError(form, 'slug', e.message);

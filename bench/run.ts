@@ -1,0 +1,87 @@
+/**
+ * npm run bench — prints the figures the issues set targets for. Needs a production build
+ * (npm run build). Load tests hit 127.0.0.1 only, 50 connections, a few seconds each.
+ */
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { benchEngine, BENCH_TABLE } from './engine';
+import { benchSweep } from './sweep';
+import { startBareServer, startBuiltServer, load } from './server';
+import type { RevisionContent } from '../src/lib/schemas/design';
+
+const SECONDS = Number(process.env.BENCH_SECONDS ?? 5);
+const dataDir = mkdtempSync(join(tmpdir(), 'bandwright-bench-'));
+process.env.DATABASE_URL = join(dataDir, 'bench.db');
+process.env.DATA_DIR = dataDir;
+
+const line = (label: string, value: string) => console.log(`${label.padEnd(58)} ${value}`);
+const ratio = (a: number, b: number) => `${((100 * a) / b).toFixed(0)} %`;
+
+function benchContent(): RevisionContent {
+	const unitOf = (v: number | string) => {
+		if (typeof v === 'number') return { value: v };
+		const [n, u] = v.split(' ');
+		return { value: Number(n), unit: u };
+	};
+	return {
+		design_frequency_hz: 2.45e9,
+		parameters: BENCH_TABLE.parameters.map((p) => ({ key: p.key, label: p.key, ...unitOf(p.value) })),
+		rows: BENCH_TABLE.rows.map((r) => ({ key: r.key, label: r.label ?? r.key, formula: r.formula, kind: r.kind, ...(r.catalogue ? { catalogue: r.catalogue } : {}) })),
+		claim: { centre_hz: 2.45e9, band_lo_hz: 2.4e9, band_hi_hz: 2.5e9, vswr_max: 2 },
+		notes: 'Benchmark design (generated, not a real design).\n\n' + 'Cut, bend, solder and measure. '.repeat(200),
+		change_note: 'bench'
+	};
+}
+
+async function main() {
+	console.log('== dimension engine (in process)');
+	for (const [k, v] of Object.entries(await benchEngine())) line(k, v.toFixed(1));
+	console.log('== sweeps (in process)');
+	for (const [k, v] of Object.entries(await benchSweep())) line(k, v.toFixed(1));
+
+	// Fixtures through the server's own modules (after DATABASE_URL is set).
+	const { seedDemo } = await import('../src/lib/server/seed');
+	const { createDesign } = await import('../src/lib/server/designs');
+	const { submitRevision } = await import('../src/lib/server/revisions');
+	const { findUserByEmail } = await import('../src/lib/server/accounts');
+	const { toSessionUser } = await import('../src/lib/server/auth');
+	const { benchSearch } = await import('./search');
+	await seedDemo(() => {});
+	const owner = toSessionUser(findUserByEmail('priya@lanternhill.example')!);
+	const bench = createDesign(owner, { title: 'Bench forty-row design', slug: 'bench-forty', family: 'biquad', polarization: 'linear', summary: 'generated' }, benchContent());
+	submitRevision(owner, bench.revisionId);
+
+	console.log('== HTTP (autocannon -c 50, %d s each, loopback)', SECONDS);
+	const bare = await startBareServer(4402);
+	const bareR = await load('http://127.0.0.1:4402/', SECONDS);
+	bare.kill();
+	const server = await startBuiltServer(4401, { DATABASE_URL: process.env.DATABASE_URL!, DATA_DIR: dataDir, RATE_LIMIT_FACTOR: '1000000' });
+	try {
+		const u = (p: string) => `http://127.0.0.1:4401${p}`;
+		const health = await load(u('/api/v1/health'), SECONDS);
+		const evalBody = JSON.stringify({ frequency_hz: 5.8e9, parameters: BENCH_TABLE.parameters, rows: BENCH_TABLE.rows });
+		const evaluate = await load(u('/api/v1/evaluate'), SECONDS, { method: 'POST', body: evalBody });
+		const dims = await load(u('/api/v1/designs/bench-forty/revisions/1/dimensions?f=5800000000'), SECONDS);
+		const pageR = await load(u('/designs/bench-forty?f=5800000000'), SECONDS);
+		line('bare node:http (machine ceiling) req/s', bareR.rps.toFixed(0));
+		line('trivial SvelteKit JSON route /api/v1/health req/s', `${health.rps.toFixed(0)}  (p50 ${health.p50} ms, p99 ${health.p99} ms)`);
+		line('POST /api/v1/evaluate, 40 rows, req/s', `${evaluate.rps.toFixed(0)}  = ${ratio(evaluate.rps, health.rps)} of health (target ≥ 50 %)`);
+		line('GET dimensions API, 40-row design, req/s', `${dims.rps.toFixed(0)}  = ${ratio(dims.rps, health.rps)} of health (target ≥ 40 %)`);
+		line('design page SSR, 40-row design, req/s', `${pageR.rps.toFixed(0)}  = ${ratio(pageR.rps, health.rps)} of health (target ≥ 25 %)`);
+		for (const [name, r] of Object.entries({ health, evaluate, dims, page: pageR })) {
+			if (r.errors || r.non2xx) console.log(`  warning: ${name} had ${r.errors} errors and ${r.non2xx} non-2xx answers`);
+		}
+	} finally {
+		server.kill();
+	}
+
+	console.log('== search over 10 000 generated designs (in process)');
+	for (const [k, v] of Object.entries(await benchSearch(owner))) line(k, v.toFixed(2));
+	rmSync(dataDir, { recursive: true, force: true });
+}
+
+main().catch((e) => {
+	console.error(e);
+	process.exit(1);
+});

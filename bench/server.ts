@@ -1,0 +1,56 @@
+/** Helpers to run the built server and load generators on loopback only, bounded in time. */
+import autocannon from 'autocannon';
+import { spawn, type ChildProcess } from 'node:child_process';
+
+export async function waitFor(url: string, timeoutMs = 30_000): Promise<void> {
+	const until = Date.now() + timeoutMs;
+	while (Date.now() < until) {
+		try {
+			if ((await fetch(url)).ok) return;
+		} catch {
+			/* not up yet */
+		}
+		await new Promise((r) => setTimeout(r, 200));
+	}
+	throw new Error(`${url} did not come up`);
+}
+
+export async function startBuiltServer(port: number, env: Record<string, string>): Promise<ChildProcess> {
+	const child = spawn(process.execPath, [process.env.BUILD_DIR || 'build'], {
+		env: { ...process.env, ...env, PORT: String(port), ORIGIN: `http://127.0.0.1:${port}` },
+		stdio: ['ignore', 'ignore', 'inherit']
+	});
+	await waitFor(`http://127.0.0.1:${port}/api/v1/health`);
+	return child;
+}
+
+/** A bare node:http server in its own process (so it does not share a core with the load generator). */
+export async function startBareServer(port: number): Promise<ChildProcess> {
+	const code = `require('node:http').createServer((q, s) => { s.writeHead(200, { 'content-type': 'application/json' }); s.end('{"ok":true}'); }).listen(${port}, '127.0.0.1')`;
+	const child = spawn(process.execPath, ['-e', code], { stdio: 'ignore' });
+	await waitFor(`http://127.0.0.1:${port}/`);
+	return child;
+}
+
+export interface LoadResult {
+	rps: number;
+	p50: number;
+	p99: number;
+	errors: number;
+	non2xx: number;
+}
+
+/** autocannon against 127.0.0.1 only: 50 connections for `seconds` (bounded). */
+export async function load(url: string, seconds: number, opts: { method?: 'GET' | 'POST'; body?: string } = {}): Promise<LoadResult> {
+	if (!url.startsWith('http://127.0.0.1:')) throw new Error('benchmarks only target loopback');
+	const r = await autocannon({
+		url,
+		connections: 50,
+		duration: seconds,
+		method: opts.method ?? 'GET',
+		body: opts.body,
+		// The per-browser limiter refuses requests without a user agent.
+		headers: { 'user-agent': 'bandwright-bench', ...(opts.body ? { 'content-type': 'application/json' } : {}) }
+	});
+	return { rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, errors: r.errors, non2xx: r.non2xx };
+}

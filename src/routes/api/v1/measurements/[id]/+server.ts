@@ -1,0 +1,23 @@
+import { json } from '@sveltejs/kit';
+import { eq } from 'drizzle-orm';
+import { apiError } from '$lib/server/api';
+import { db } from '$lib/server/db';
+import { users } from '$lib/server/db/schema';
+import { getMeasurement, measurementSeries } from '$lib/server/measurements';
+import { canRead, getRevisionById } from '$lib/server/revisions';
+import { isLimited } from '$lib/server/rate-limit';
+import type { RequestHandler } from './$types';
+
+/** One sweep's chart data: metrics, claim check and the display series (≤ 2000 points). */
+export const GET: RequestHandler = async (event) => {
+	if (await isLimited('compute', event)) return apiError(429, 'Too many requests. Wait a minute.');
+	const m = getMeasurement(event.params.id);
+	const r = m ? getRevisionById(m.revisionId) : null;
+	if (!m || !r || !canRead(event.locals.user, r)) return apiError(404, 'No such measurement.');
+	const uploader =
+		db.select({ n: users.displayName }).from(users).where(eq(users.id, m.uploaderId)).get()?.n ??
+		'unknown';
+	return json(measurementSeries(m, uploader), {
+		headers: { 'cache-control': r.state === 'draft' ? 'private, no-store' : 'public, max-age=300' }
+	});
+};
