@@ -7,6 +7,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { benchEngine, BENCH_TABLE } from './engine';
 import { benchSweep } from './sweep';
+import { benchMeasurements } from './measurements';
 import { startBareServer, startBuiltServer, load } from './server';
 import type { RevisionContent } from '../src/lib/schemas/design';
 
@@ -39,6 +40,8 @@ async function main() {
 	for (const [k, v] of Object.entries(await benchEngine())) line(k, v.toFixed(1));
 	console.log('== sweeps (in process)');
 	for (const [k, v] of Object.entries(await benchSweep())) line(k, v.toFixed(1));
+	console.log('== photos (in process)');
+	for (const [k, v] of Object.entries(await benchMeasurements())) line(k, v.toFixed(1));
 
 	// Fixtures through the server's own modules (after DATABASE_URL is set).
 	const { seedDemo } = await import('../src/lib/server/seed');
