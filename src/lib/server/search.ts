@@ -1,28 +1,41 @@
-import { and, desc, eq, sql, type SQL } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
+import type { Statement } from 'better-sqlite3';
 import { db, sqlite } from './db';
-import { designs, measurements, revisions, users } from './db/schema';
+import { designs } from './db/schema';
 import { defaultRevision } from './designs';
 import { markdownToPlainText } from './markdown';
+import { makeSnippet } from './snippet';
 
-/** Keeps the FTS row of one design equal to its title, summary and shown revision's notes. */
+/**
+ * Keeps the FTS row of one design equal to its title, summary and listed revision's notes. The
+ * row id is the design's search_rowid, so hits join their design by an integer.
+ */
 export function reindexDesign(designId: string): void {
 	const design = db.select().from(designs).where(eq(designs.id, designId)).get();
-	sqlite.prepare('DELETE FROM design_search WHERE design_id = ?').run(designId);
-	if (!design) return;
+	if (!design || design.searchRowid === null) return;
+	prepared('DELETE FROM design_search WHERE rowid = ?').run(design.searchRowid);
 	const shown = defaultRevision(design);
 	if (!shown) return;
-	sqlite
-		.prepare('INSERT INTO design_search (design_id, title, summary, notes) VALUES (?, ?, ?, ?)')
-		.run(designId, design.title, design.summary, markdownToPlainText(shown.notes));
+	prepared('INSERT INTO design_search (rowid, title, summary, notes) VALUES (?, ?, ?, ?)').run(
+		design.searchRowid,
+		design.title,
+		design.summary,
+		markdownToPlainText(shown.notes)
+	);
 }
 
-/** Words from a person's query as FTS5 prefix terms; FTS syntax in the input is never interpreted. */
-export function ftsQuery(q: string): string | null {
-	const words = q
+/** The words of a person's query (at most 12), as the index tokenizer splits them. */
+export function queryWords(q: string): string[] {
+	return q
 		.normalize('NFKC')
 		.split(/[^\p{L}\p{N}_]+/u)
 		.filter(Boolean)
 		.slice(0, 12);
+}
+
+/** Words from a person's query as FTS5 prefix terms; FTS syntax in the input is never interpreted. */
+export function ftsQuery(q: string): string | null {
+	const words = queryWords(q);
 	return words.length ? words.map((w) => `"${w.replace(/"/g, '""')}"*`).join(' ') : null;
 }
 
@@ -40,84 +53,108 @@ export interface DesignQuery {
 	pageSize?: number;
 }
 
-export type SnippetPart = { text: string; hit: boolean };
-
-const HIT_START = '\u0001';
-const HIT_END = '\u0002';
-
-export function snippetParts(s: string): SnippetPart[] {
-	const parts: SnippetPart[] = [];
-	for (const chunk of s.split(HIT_START)) {
-		const [inside, after] = chunk.includes(HIT_END) ? chunk.split(HIT_END, 2) : [null, chunk];
-		if (inside !== null) parts.push({ text: inside, hit: true });
-		if (after) parts.push({ text: after, hit: false });
-	}
-	return parts;
+interface ListingRow {
+	search_rowid: number;
+	slug: string;
+	title: string;
+	family: string;
+	polarization: string;
+	summary: string;
+	status: string;
+	reviewed: number;
+	is_demo: number;
+	owner: string;
+	created_at: number;
+	build_reports: number;
+	revision_number: number;
+	claim_lo_hz: number | null;
+	claim_hi_hz: number | null;
 }
 
+/** The listed revision's claimed band overlaps [?, ?] (bound as high edge, low edge). */
+const CLAIM_OVERLAPS = 'd.listed_lo_hz <= ? AND d.listed_hi_hz >= ?';
+
+// Statements are prepared once per distinct SQL text (a handful: one per filter combination).
+const statements = new Map<string, Statement>();
+function prepared(text: string): Statement {
+	let st = statements.get(text);
+	if (!st) {
+		st = sqlite.prepare(text);
+		statements.set(text, st);
+	}
+	return st;
+}
+
+/**
+ * One page of the listing. Filters and sorts read only columns of designs (the listed revision's
+ * band and the build-report count are kept there by triggers); a full-text hit finds its design
+ * by search_rowid. Names, revision numbers and snippets are fetched for the page's rows only.
+ */
 export function searchDesigns(query: DesignQuery) {
 	const pageSize = Math.min(50, Math.max(1, query.pageSize ?? 20));
 	const page = Math.max(1, Math.min(1000, query.page ?? 1));
-	const shown = sql`coalesce(${designs.shownRevisionId}, (select r.id from revisions r where r.design_id = ${designs.id} and r.state in ('submitted','approved') order by r.number desc limit 1))`;
-	const conditions: SQL[] = [sql`${shown} is not null`];
-	const status = query.status ?? 'active';
-	if (status !== 'all') conditions.push(eq(designs.status, status));
-	if (query.family) conditions.push(eq(designs.family, query.family));
-	if (query.polarization) conditions.push(sql`${designs.polarization} = ${query.polarization}`);
-	if (query.band) {
-		conditions.push(sql`exists (select 1 from revisions r where r.id = ${shown} and r.claim_lo_hz <= ${query.band[1]} and r.claim_hi_hz >= ${query.band[0]})`);
-	}
-	if (query.containsHz !== undefined) {
-		conditions.push(sql`exists (select 1 from revisions r where r.id = ${shown} and r.claim_lo_hz <= ${query.containsHz} and r.claim_hi_hz >= ${query.containsHz})`);
-	}
 	const match = query.q ? ftsQuery(query.q) : null;
 	if (query.q && !match) return { items: [], total: 0, page, pageSize };
-	if (match) {
-		conditions.push(sql`${designs.id} in (select design_id from design_search where design_search match ${match})`);
-	}
-	const reports = sql<number>`(select count(*) from ${measurements} m join ${revisions} r on r.id = m.revision_id where r.design_id = ${designs.id} and m.kind = 'build_report')`;
-	const snippet = match
-		? sql<string>`(select snippet(design_search, -1, ${HIT_START}, ${HIT_END}, '…', 14) from design_search where design_search match ${match} and design_id = ${designs.id})`
-		: sql<string>`null`;
-	const where = and(...conditions);
-	const order =
+
+	const where: string[] = ['d.listed_revision_id IS NOT NULL'];
+	const args: (string | number)[] = [];
+	if (match) where.unshift('design_search MATCH ?'), args.push(match);
+	const status = query.status ?? 'active';
+	if (status !== 'all') where.push('d.status = ?'), args.push(status);
+	if (query.family) where.push('d.family = ?'), args.push(query.family);
+	if (query.polarization) where.push('d.polarization = ?'), args.push(query.polarization);
+	if (query.band) where.push(CLAIM_OVERLAPS), args.push(query.band[1], query.band[0]);
+	if (query.containsHz !== undefined) where.push(CLAIM_OVERLAPS), args.push(query.containsHz, query.containsHz);
+	const filter = match
+		? `FROM design_search h JOIN designs d ON d.search_rowid = h.rowid WHERE ${where.join(' AND ')}`
+		: `FROM designs d WHERE ${where.join(' AND ')}`;
+	// search_rowid last: a total order, so pages never repeat or skip designs created in the same ms.
+	const keys =
 		query.sort === 'reports'
-			? [desc(reports), desc(designs.createdAt)]
+			? ['build_reports DESC', 'created_at DESC', 'search_rowid DESC']
 			: match && query.sort !== 'newest'
-				? [sql`(select bm25(design_search) from design_search where design_search match ${match} and design_id = ${designs.id})`, desc(designs.createdAt)]
-				: [desc(designs.createdAt)];
-	const items = db
-		.select({
-			slug: designs.slug,
-			title: designs.title,
-			family: designs.family,
-			polarization: designs.polarization,
-			summary: designs.summary,
-			status: designs.status,
-			reviewed: sql<number>`${designs.shownRevisionId} is not null`,
-			isDemo: designs.isDemo,
-			owner: users.displayName,
-			createdAt: designs.createdAt,
-			buildReports: reports,
-			snippet,
-			revisionNumber: sql<number>`(select number from revisions r where r.id = ${shown})`,
-			claimLoHz: sql<number | null>`(select claim_lo_hz from revisions r where r.id = ${shown})`,
-			claimHiHz: sql<number | null>`(select claim_hi_hz from revisions r where r.id = ${shown})`
-		})
-		.from(designs)
-		.innerJoin(users, eq(users.id, designs.ownerId))
-		.where(where)
-		.orderBy(...order)
-		.limit(pageSize)
-		.offset((page - 1) * pageSize)
-		.all()
-		.map((d) => ({
-			...d,
+				? ['score', 'created_at DESC', 'search_rowid DESC']
+				: ['created_at DESC', 'search_rowid DESC'];
+	const pageIds = `SELECT d.id, d.search_rowid, d.created_at, d.build_reports${match ? ', h.rank AS score' : ''}
+		${filter} ORDER BY ${keys.join(', ')} LIMIT ? OFFSET ?`;
+	const rows = prepared(
+		`SELECT p.search_rowid, d.slug, d.title, d.family, d.polarization, d.summary, d.status,
+			d.shown_revision_id IS NOT NULL AS reviewed, d.is_demo, u.display_name AS owner, d.created_at,
+			d.build_reports, r.number AS revision_number, r.claim_lo_hz, r.claim_hi_hz
+		FROM (${pageIds}) p JOIN designs d ON d.id = p.id JOIN users u ON u.id = d.owner_id
+			JOIN revisions r ON r.id = d.listed_revision_id
+		ORDER BY ${keys.map((k) => `p.${k}`).join(', ')}`
+	).all(...args, pageSize, (page - 1) * pageSize) as ListingRow[];
+	const total = (prepared(`SELECT count(*) AS n ${filter}`).get(...args) as { n: number }).n;
+	const texts = match ? indexedTexts(rows) : new Map<number, string[]>();
+	const items = rows.map((d) => {
+		const text = texts.get(d.search_rowid);
+		return {
+			slug: d.slug,
+			title: d.title,
+			family: d.family,
+			polarization: d.polarization,
+			summary: d.summary,
+			status: d.status,
 			reviewed: !!d.reviewed,
-			createdAt: d.createdAt.toISOString(),
-			snippet: d.snippet ? snippetParts(d.snippet) : null
-		}));
-	const total = db.select({ n: sql<number>`count(*)` }).from(designs).where(where).get()?.n ?? 0;
+			isDemo: !!d.is_demo,
+			owner: d.owner,
+			createdAt: new Date(d.created_at).toISOString(),
+			buildReports: d.build_reports,
+			snippet: text && query.q ? makeSnippet(text, queryWords(query.q)) : null,
+			revisionNumber: d.revision_number,
+			claimLoHz: d.claim_lo_hz,
+			claimHiHz: d.claim_hi_hz
+		};
+	});
 	return { items, total, page, pageSize };
 }
 
+/** The indexed notes, summary and title of the page's rows, for their snippets. */
+function indexedTexts(rows: ListingRow[]): Map<number, string[]> {
+	if (!rows.length) return new Map();
+	const found = prepared(
+		'SELECT rowid AS id, notes, summary, title FROM design_search WHERE rowid IN (SELECT value FROM json_each(?))'
+	).all(JSON.stringify(rows.map((r) => r.search_rowid))) as { id: number; notes: string; summary: string; title: string }[];
+	return new Map(found.map((t) => [t.id, [t.notes, t.summary, t.title]]));
+}

@@ -99,11 +99,27 @@ export const designs = sqliteTable(
 		status: text('status', { enum: DESIGN_STATUSES }).notNull().default('active'),
 		/** The newest approved revision, shown by default. */
 		shownRevisionId: text('shown_revision_id'),
+		/**
+		 * What listings show: the shown revision, else the newest submitted one. Kept by triggers
+		 * (drizzle/0002_listing_columns.sql), never written by the app.
+		 */
+		listedRevisionId: text('listed_revision_id'),
+		/** The listed revision's claimed band edges, for band filters; kept by triggers. */
+		listedLoHz: real('listed_lo_hz'),
+		listedHiHz: real('listed_hi_hz'),
+		/** Build reports filed on any of the design's revisions; kept by triggers. */
+		buildReports: integer('build_reports').notNull().default(0),
+		/** The design's row id in the full-text index (design_search), set once by a trigger. */
+		searchRowid: integer('search_rowid').unique(),
 		isDemo: integer('is_demo', { mode: 'boolean' }).notNull().default(false),
 		createdAt: createdAt(),
 		updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull()
 	},
-	(t) => [index('designs_family_idx').on(t.family), index('designs_created_idx').on(t.createdAt)]
+	(t) => [
+		index('designs_family_idx').on(t.family),
+		index('designs_created_idx').on(t.createdAt),
+		index('designs_reports_idx').on(t.buildReports, t.createdAt)
+	]
 );
 
 export const REVISION_STATES = ['draft', 'submitted', 'approved', 'returned', 'withdrawn'] as const;
