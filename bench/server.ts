@@ -40,10 +40,19 @@ export interface LoadResult {
 	non2xx: number;
 }
 
-/** autocannon against 127.0.0.1 only: 50 connections for `seconds` (bounded). */
+/**
+ * autocannon against 127.0.0.1 only: 50 connections for `seconds` (bounded), after a one-second
+ * warm-up that is not counted (first requests load modules lazily and let V8 optimise).
+ */
 export async function load(url: string, seconds: number, opts: { method?: 'GET' | 'POST'; body?: string } = {}): Promise<LoadResult> {
 	if (!url.startsWith('http://127.0.0.1:')) throw new Error('benchmarks only target loopback');
-	const r = await autocannon({
+	await run(url, 1, opts);
+	const r = await run(url, seconds, opts);
+	return { rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, errors: r.errors, non2xx: r.non2xx };
+}
+
+function run(url: string, seconds: number, opts: { method?: 'GET' | 'POST'; body?: string }) {
+	return autocannon({
 		url,
 		connections: 50,
 		duration: seconds,
@@ -52,5 +61,4 @@ export async function load(url: string, seconds: number, opts: { method?: 'GET' 
 		// The per-browser limiter refuses requests without a user agent.
 		headers: { 'user-agent': 'bandwright-bench', ...(opts.body ? { 'content-type': 'application/json' } : {}) }
 	});
-	return { rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, errors: r.errors, non2xx: r.non2xx };
 }

@@ -53,6 +53,19 @@ const frequency = z
 	.positive({ error: 'frequency_hz must be above 0' })
 	.max(MAX_FREQUENCY_HZ, { error: 'frequency_hz must be at most 1 THz (1e12 Hz)' });
 
+const bandHz = z
+	.tuple([frequency, frequency], { error: 'band_hz must be [low, high] in Hz' })
+	.refine(([lo, hi]) => lo < hi, { message: 'band_hz low edge must be below the high edge' })
+	.optional();
+
+const units = z.enum(['mm', 'in', 'in_frac'], { error: 'units must be mm, in or in_frac' }).optional();
+
+/** The fields of a request besides the table: what changes from one call to the next. */
+const optionsSchema = z.object(
+	{ frequency_hz: frequency, band_hz: bandHz, units },
+	{ error: 'the body must be a JSON object' }
+);
+
 const requestSchema = z
 	.object(
 		{
@@ -64,13 +77,8 @@ const requestSchema = z
 			rows: z
 				.array(row, { error: 'rows must be a list' })
 				.max(MAX_ROWS, { error: `at most ${MAX_ROWS} rows` }),
-			band_hz: z
-				.tuple([frequency, frequency], { error: 'band_hz must be [low, high] in Hz' })
-				.refine(([lo, hi]) => lo < hi, { message: 'band_hz low edge must be below the high edge' })
-				.optional(),
-			units: z
-				.enum(['mm', 'in', 'in_frac'], { error: 'units must be mm, in or in_frac' })
-				.optional()
+			band_hz: bandHz,
+			units
 		},
 		{ error: 'the body must be a JSON object' }
 	)
@@ -109,14 +117,27 @@ export function parseEvaluateRequest(body: unknown): ParseResult {
 	return { ok: false, error: { message: issue.message, field: fieldName(issue.path) } };
 }
 
+function toOptions(req: z.infer<typeof optionsSchema>): EvaluateOptions {
+	const options: EvaluateOptions = { frequencyHz: req.frequency_hz };
+	if (req.band_hz) options.bandHz = [req.band_hz[0], req.band_hz[1]];
+	if (req.units) options.units = req.units;
+	return options;
+}
+
 /** The engine's inputs from a validated request. */
 export function toTableInput(req: EvaluateRequest): {
 	definition: TableDefinition;
 	options: EvaluateOptions;
 } {
-	const definition: TableDefinition = { parameters: req.parameters, rows: req.rows };
-	const options: EvaluateOptions = { frequencyHz: req.frequency_hz };
-	if (req.band_hz) options.bandHz = [req.band_hz[0], req.band_hz[1]];
-	if (req.units) options.units = req.units;
-	return { definition, options };
+	return { definition: { parameters: req.parameters, rows: req.rows }, options: toOptions(req) };
+}
+
+/**
+ * Only the options of a request whose table was validated before (a client retyping the
+ * frequency sends the same table again). Null when they are not valid: parse the whole body then,
+ * so the error names the first bad field as usual.
+ */
+export function parseEvaluateOptions(body: unknown): EvaluateOptions | null {
+	const r = optionsSchema.safeParse(body);
+	return r.success ? toOptions(r.data) : null;
 }

@@ -1,6 +1,6 @@
 /** Photos and sweep screenshots on a revision, re-encoded by sharp before anything is stored. */
 import sharp from 'sharp';
-import { asc, eq } from 'drizzle-orm';
+import { asc, eq, sql } from 'drizzle-orm';
 import { firstIssue, photoFormSchema } from '$lib/schemas/measurement';
 import { db } from './db';
 import { attachments, users, type Revision } from './db/schema';
@@ -203,26 +203,27 @@ export function getAttachment(id: string) {
 	return db.select().from(attachments).where(eq(attachments.id, id)).get() ?? null;
 }
 
+const attachmentsOfRevision = db
+	.select({
+		id: attachments.id,
+		kind: attachments.kind,
+		caption: attachments.caption,
+		width: attachments.width,
+		height: attachments.height,
+		hasOriginal: attachments.originalKey,
+		uploader: users.displayName,
+		createdAt: attachments.createdAt
+	})
+	.from(attachments)
+	.innerJoin(users, eq(users.id, attachments.uploaderId))
+	.where(eq(attachments.revisionId, sql.placeholder('revisionId')))
+	.orderBy(asc(attachments.createdAt), asc(attachments.id))
+	.prepare();
+
 export function listAttachments(revisionId: string) {
-	return db
-		.select({
-			id: attachments.id,
-			kind: attachments.kind,
-			caption: attachments.caption,
-			width: attachments.width,
-			height: attachments.height,
-			hasOriginal: attachments.originalKey,
-			uploader: users.displayName,
-			createdAt: attachments.createdAt
-		})
-		.from(attachments)
-		.innerJoin(users, eq(users.id, attachments.uploaderId))
-		.where(eq(attachments.revisionId, revisionId))
-		.orderBy(asc(attachments.createdAt), asc(attachments.id))
-		.all()
-		.map((a) => ({
-			...a,
-			hasOriginal: a.hasOriginal !== null,
-			createdAt: a.createdAt.toISOString()
-		}));
+	return attachmentsOfRevision.all({ revisionId }).map((a) => ({
+		...a,
+		hasOriginal: a.hasOriginal !== null,
+		createdAt: a.createdAt.toISOString()
+	}));
 }

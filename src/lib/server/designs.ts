@@ -1,4 +1,4 @@
-import { and, desc, eq, inArray, sql } from 'drizzle-orm';
+import { desc, eq, sql } from 'drizzle-orm';
 import { db } from './db';
 import { designs, revisions, users, type Design, type Revision } from './db/schema';
 import type { z } from 'zod';
@@ -99,49 +99,53 @@ export function createDesign(
 	return { designId, slug, revisionId };
 }
 
+// The lookups every design page and API call makes, prepared once (building a drizzle query costs
+// more than running it).
+const designBySlug = db.select().from(designs).where(eq(designs.slug, sql.placeholder('slug'))).prepare();
+const userName = db.select({ n: users.displayName }).from(users).where(eq(users.id, sql.placeholder('id'))).prepare();
+const revisionById = db.select().from(revisions).where(eq(revisions.id, sql.placeholder('id'))).prepare();
+const revisionsOfDesign = db
+	.select({
+		id: revisions.id,
+		number: revisions.number,
+		state: revisions.state,
+		authorId: revisions.authorId,
+		authorName: users.displayName,
+		changeNote: revisions.changeNote,
+		createdAt: revisions.createdAt,
+		submittedAt: revisions.submittedAt,
+		decidedAt: revisions.decidedAt
+	})
+	.from(revisions)
+	.innerJoin(users, eq(users.id, revisions.authorId))
+	.where(eq(revisions.designId, sql.placeholder('designId')))
+	.orderBy(desc(revisions.number))
+	.prepare();
+
 export function getDesignBySlug(slug: string): Design | null {
 	if (!/^[a-z0-9-]{1,80}$/.test(slug)) return null;
-	return db.select().from(designs).where(eq(designs.slug, slug)).get() ?? null;
+	return designBySlug.get({ slug }) ?? null;
 }
 
 export function ownerName(userId: string): string {
-	return db.select({ n: users.displayName }).from(users).where(eq(users.id, userId)).get()?.n ?? 'unknown';
+	return userName.get({ id: userId })?.n ?? 'unknown';
 }
 
+export function getRevisionById(id: string): Revision | null {
+	return revisionById.get({ id }) ?? null;
+}
+
+/** Newest first. */
 export function listRevisions(designId: string) {
-	return db
-		.select({
-			id: revisions.id,
-			number: revisions.number,
-			state: revisions.state,
-			authorId: revisions.authorId,
-			authorName: users.displayName,
-			changeNote: revisions.changeNote,
-			createdAt: revisions.createdAt,
-			submittedAt: revisions.submittedAt,
-			decidedAt: revisions.decidedAt
-		})
-		.from(revisions)
-		.innerJoin(users, eq(users.id, revisions.authorId))
-		.where(eq(revisions.designId, designId))
-		.orderBy(desc(revisions.number))
-		.all();
+	return revisionsOfDesign.all({ designId });
 }
 
-/** What a reader sees by default: the newest approved revision, else the newest submitted one. */
+/**
+ * What a reader sees by default: the newest approved revision, else the newest submitted one
+ * (designs.listed_revision_id, which triggers keep equal to that).
+ */
 export function defaultRevision(design: Design): Revision | null {
-	if (design.shownRevisionId) {
-		const shown = db.select().from(revisions).where(eq(revisions.id, design.shownRevisionId)).get();
-		if (shown) return shown;
-	}
-	return (
-		db
-			.select()
-			.from(revisions)
-			.where(and(eq(revisions.designId, design.id), inArray(revisions.state, ['submitted', 'approved'])))
-			.orderBy(desc(revisions.number))
-			.get() ?? null
-	);
+	return design.listedRevisionId ? getRevisionById(design.listedRevisionId) : null;
 }
 
 export function updateDesignMeta(user: SessionUser, design: Design, metaIn: Omit<DesignMeta, 'slug'>) {

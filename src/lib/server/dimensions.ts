@@ -6,22 +6,30 @@ import type { Revision } from './db/schema';
 import { contentOf } from './designs';
 import { Lru } from './lru';
 
-// Submitted revisions never change, so their compiled tables are kept; drafts are keyed by save time.
-const compiled = new Lru<string, CompiledTable>(500);
+interface Prepared {
+	table: CompiledTable;
+	/** Rows naming a catalogue this version does not know (kept from older files), with a warning. */
+	unknown: { key: string; catalogue: string }[];
+}
 
-function compiledFor(r: Revision): CompiledTable {
+// Submitted revisions never change, so their compiled tables are kept; drafts are keyed by save time.
+const compiled = new Lru<string, Prepared>(500);
+
+function compiledFor(r: Revision): Prepared {
 	const key = r.state === 'draft' ? `${r.id}@${r.updatedAt.getTime()}` : r.id;
 	let t = compiled.get(key);
 	if (!t) {
-		t = compileTable(toTableDefinition(contentOf(r)));
+		const content = contentOf(r);
+		t = { table: compileTable(toTableDefinition(content)), unknown: unknownCatalogues(content) };
 		compiled.set(key, t);
 	}
 	return t;
 }
 
 export function computeRevision(r: Revision, opts: EvaluateOptions): TableResult {
-	const result = evaluateTable(compiledFor(r), opts);
-	for (const { key, catalogue } of unknownCatalogues(contentOf(r))) {
+	const { table, unknown } = compiledFor(r);
+	const result = evaluateTable(table, opts);
+	for (const { key, catalogue } of unknown) {
 		result.rows.find((row) => row.key === key)?.warnings.push(`Unknown stock catalogue "${catalogue}"; not snapped.`);
 	}
 	return result;

@@ -1,5 +1,5 @@
 /** The design page's measurements section: sweeps, pass counts, photos, who may upload. */
-import { eq } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import { db } from './db';
 import { measurements, revisions, type Design, type Revision } from './db/schema';
 import type { SessionUser } from './auth';
@@ -58,20 +58,21 @@ export interface PassCount {
 	pass: number;
 }
 
+const designCounts = db
+	.select({
+		kind: measurements.kind,
+		pass: measurements.claimPass,
+		state: revisions.state,
+		authorId: revisions.authorId
+	})
+	.from(measurements)
+	.innerJoin(revisions, eq(revisions.id, measurements.revisionId))
+	.where(eq(revisions.designId, sql.placeholder('designId')))
+	.prepare();
+
 /** Author's measurements and build reports over every revision of the design the reader can see. */
 export function designMeasurementCounts(designId: string, user: SessionUser | null) {
-	const rows = db
-		.select({
-			kind: measurements.kind,
-			pass: measurements.claimPass,
-			state: revisions.state,
-			authorId: revisions.authorId
-		})
-		.from(measurements)
-		.innerJoin(revisions, eq(revisions.id, measurements.revisionId))
-		.where(eq(revisions.designId, designId))
-		.all()
-		.filter((x) => x.state !== 'draft' || x.authorId === user?.id);
+	const rows = designCounts.all({ designId }).filter((x) => x.state !== 'draft' || x.authorId === user?.id);
 	const count = (kind: UploadKind): PassCount => {
 		const of = rows.filter((x) => x.kind === kind);
 		return { total: of.length, pass: of.filter((x) => x.pass === true).length };

@@ -1,5 +1,5 @@
 /** Sweeps on revisions: the author's measurements and other members' build reports. */
-import { asc, eq } from 'drizzle-orm';
+import { asc, eq, getTableColumns, sql } from 'drizzle-orm';
 import {
 	analyzeSweep,
 	parseSweep,
@@ -220,14 +220,28 @@ export function getMeasurement(id: string) {
 
 export type MeasurementRow = NonNullable<ReturnType<typeof getMeasurement>>;
 
-export function listMeasurementRows(revisionId: string) {
-	return db
-		.select({ m: measurements, uploader: users.displayName })
-		.from(measurements)
-		.innerJoin(users, eq(users.id, measurements.uploaderId))
-		.where(eq(measurements.revisionId, revisionId))
-		.orderBy(asc(measurements.createdAt), asc(measurements.id))
-		.all();
+// The design page lists metrics only: the stored series (about 34 kB of JSON a sweep) stays in
+// the database, and the query is prepared once.
+const { analysis: _series, ...listedColumns } = getTableColumns(measurements);
+const measurementsOfRevision = db
+	.select({
+		m: {
+			...listedColumns,
+			analysis: sql<Record<string, unknown>>`json_remove(${measurements.analysis}, '$.series')`.mapWith(
+				(v: string) => JSON.parse(v) as Record<string, unknown>
+			)
+		},
+		uploader: users.displayName
+	})
+	.from(measurements)
+	.innerJoin(users, eq(users.id, measurements.uploaderId))
+	.where(eq(measurements.revisionId, sql.placeholder('revisionId')))
+	.orderBy(asc(measurements.createdAt), asc(measurements.id))
+	.prepare();
+
+/** A revision's sweeps, oldest first, with their metrics but without the plotted series. */
+export function listMeasurementRows(revisionId: string): { m: MeasurementRow; uploader: string }[] {
+	return measurementsOfRevision.all({ revisionId });
 }
 
 /** A short human label for a sweep: who, what, when. */

@@ -1,5 +1,5 @@
 /** Reviews and verdicts: the one place that writes the reviews table and decides revision states. */
-import { and, asc, desc, eq, inArray, ne } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNull, ne, sql } from 'drizzle-orm';
 import { db } from './db';
 import { comments, designs, reviews, revisions, users, type Design, type Revision } from './db/schema';
 import { APPROVAL_POLICY, decideRevisionState, type ApprovalPolicy, type PolicyState } from '$lib/review-policy';
@@ -9,6 +9,7 @@ import { DomainError } from './errors';
 import { audit } from './audit';
 import { newId } from './accounts';
 import { reindexDesign } from './search';
+import { ownerName } from './designs';
 import { notifyRejectConfirmed, notifyReview, type Tx } from './notify';
 import type { SessionUser } from './auth';
 
@@ -23,21 +24,30 @@ export interface ReviewOptions {
 	policy?: ApprovalPolicy;
 }
 
-const displayName = (id: string, tx: Pick<typeof db, 'select'> = db) =>
-	tx.select({ n: users.displayName }).from(users).where(eq(users.id, id)).get()?.n ?? 'unknown';
+const displayName = ownerName;
 
-function verdictsOf(revisionId: string, tx: Pick<typeof db, 'select'> = db) {
-	return tx
-		.select()
-		.from(reviews)
-		.where(eq(reviews.revisionId, revisionId))
-		.orderBy(asc(reviews.createdAt))
-		.all();
+// Prepared once; better-sqlite3 has one connection, so they also serve inside transactions.
+const verdictsQuery = db
+	.select()
+	.from(reviews)
+	.where(eq(reviews.revisionId, sql.placeholder('revisionId')))
+	.orderBy(asc(reviews.createdAt))
+	.prepare();
+const threadsQuery = db
+	.select({ resolvedAt: comments.resolvedAt })
+	.from(comments)
+	.where(and(eq(comments.revisionId, sql.placeholder('revisionId')), isNull(comments.parentId)))
+	.prepare();
+
+function verdictsOf(revisionId: string) {
+	return verdictsQuery.all({ revisionId });
 }
 
+type Verdicts = ReturnType<typeof verdictsOf>;
+
 /** Where the policy puts a revision with these reviews (authors' own verdicts never count). */
-export function decisionFor(r: Revision, policy: ApprovalPolicy = APPROVAL_POLICY) {
-	const list = verdictsOf(r.id).map((v) => ({
+export function decisionFor(r: Revision, policy: ApprovalPolicy = APPROVAL_POLICY, verdicts: Verdicts = verdictsOf(r.id)) {
+	const list = verdicts.map((v) => ({
 		reviewerId: v.reviewerId,
 		verdict: v.verdict,
 		createdAt: v.createdAt.getTime()
@@ -120,7 +130,7 @@ export function submitReview(
 			tx
 		);
 		const decision = decideRevisionState(
-			verdictsOf(r.id, tx).map((v) => ({ reviewerId: v.reviewerId, verdict: v.verdict, createdAt: v.createdAt.getTime() })),
+			verdictsOf(r.id).map((v) => ({ reviewerId: v.reviewerId, verdict: v.verdict, createdAt: v.createdAt.getTime() })),
 			options.policy ?? APPROVAL_POLICY,
 			r.authorId
 		);
@@ -158,7 +168,7 @@ export function confirmReject(user: SessionUser, reviewId: string, options: Revi
 			{ actorId: user.id, action: 'review.reject_confirm', targetType: 'review', targetId: review.id, details: { revision: r.id, number: r.number } },
 			tx
 		);
-		applyDecision(tx, user.id, r, design, 'returned', `Rejection by ${displayName(review.reviewerId, tx)} confirmed by ${user.displayName}.`, now);
+		applyDecision(tx, user.id, r, design, 'returned', `Rejection by ${displayName(review.reviewerId)} confirmed by ${user.displayName}.`, now);
 		if (options.notify !== false) notifyRejectConfirmed({ design, revision: r, moderatorName: user.displayName }, tx);
 		return design.id;
 	});
@@ -175,8 +185,8 @@ export interface ReviewView {
 	confirmedAt: string | null;
 }
 
-export function reviewsFor(revisionId: string): ReviewView[] {
-	return verdictsOf(revisionId).map((v) => ({
+export function reviewsFor(revisionId: string, verdicts: Verdicts = verdictsOf(revisionId)): ReviewView[] {
+	return verdicts.map((v) => ({
 		id: v.id,
 		verdict: v.verdict,
 		summary: v.summary,
@@ -260,28 +270,24 @@ export function listQueue(user: SessionUser, filters: QueueFilters = {}) {
 		.filter((r) => !filters.mine || r.mine);
 }
 
-/** The design page's reviews section (spread into revisionPageData). */
-export function reviewsPanelData(design: Design, r: Revision, user: SessionUser | null) {
-	const list = r.state === 'draft' ? [] : reviewsFor(r.id);
-	const threads = db
-		.select({ id: comments.id, resolvedAt: comments.resolvedAt, parentId: comments.parentId })
-		.from(comments)
-		.where(eq(comments.revisionId, r.id))
-		.all()
-		.filter((c) => c.parentId === null);
-	const previous = db
-		.select({ number: revisions.number, state: revisions.state, authorId: revisions.authorId })
-		.from(revisions)
-		.where(and(eq(revisions.designId, design.id), ne(revisions.id, r.id)))
-		.orderBy(desc(revisions.number))
-		.all()
-		.find((p) => p.number < r.number && (p.state !== 'draft' || p.authorId === user?.id));
+/**
+ * The design page's reviews section (spread into revisionPageData). `history` is the design's
+ * revisions newest first, as the page already has them.
+ */
+export function reviewsPanelData(
+	r: Revision,
+	user: SessionUser | null,
+	history: Pick<Revision, 'number' | 'state' | 'authorId'>[]
+) {
+	const verdicts = r.state === 'draft' ? [] : verdictsOf(r.id);
+	const threads = threadsQuery.all({ revisionId: r.id });
+	const previous = history.find((p) => p.number < r.number && (p.state !== 'draft' || p.authorId === user?.id));
 	return {
 		reviewsPanel: {
-			reviews: list,
+			reviews: reviewsFor(r.id, verdicts),
 			threads: threads.length,
 			openThreads: threads.filter((t) => t.resolvedAt === null).length,
-			rejectPending: r.state === 'submitted' && decisionFor(r).state === 'reject_pending',
+			rejectPending: r.state === 'submitted' && decisionFor(r, APPROVAL_POLICY, verdicts).state === 'reject_pending',
 			canOpenReview: r.state !== 'draft' && (isReviewer(user) || user?.id === r.authorId),
 			previousNumber: previous?.number ?? null
 		}

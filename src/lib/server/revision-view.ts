@@ -66,7 +66,8 @@ export function revisionPageData(design: Design, r: Revision, url: URL, user: Se
 	const state = viewState(url, r);
 	const content = contentOf(r);
 	const table = computeRevision(r, { frequencyHz: state.frequencyHz, units: state.units, bandHz: state.band });
-	const history = listRevisions(design.id)
+	const revisions = listRevisions(design.id);
+	const history = revisions
 		.filter((h) => h.state !== 'draft' || h.authorId === user?.id)
 		.map((h) => ({
 			number: h.number,
@@ -107,7 +108,7 @@ export function revisionPageData(design: Design, r: Revision, url: URL, user: Se
 		table,
 		view: state,
 		history,
-		...reviewsPanelData(design, r, user),
+		...reviewsPanelData(r, user, revisions),
 		...measurementsPanelData(design, r, user)
 	};
 }

@@ -1,30 +1,28 @@
-import { and, desc, eq } from 'drizzle-orm';
+import { and, desc, eq, sql } from 'drizzle-orm';
 import { db } from './db';
 import { designs, revisions, type Design, type Revision } from './db/schema';
 import { revisionContentSchema, type RevisionContent } from '$lib/schemas/design';
 import { newId } from './accounts';
 import { DomainError } from './errors';
 import { audit } from './audit';
-import { contentOf, revisionColumns, validated } from './designs';
+import { contentOf, getRevisionById, revisionColumns, validated } from './designs';
 import { reindexDesign } from './search';
 import { assertCompilable, computeRevision } from './dimensions';
 import { notifySubmitted } from './notify';
 import type { SessionUser } from './auth';
 
+const revisionByNumber = db
+	.select()
+	.from(revisions)
+	.where(and(eq(revisions.designId, sql.placeholder('designId')), eq(revisions.number, sql.placeholder('number'))))
+	.prepare();
+
 export function getRevision(designId: string, number: number): Revision | null {
 	if (!Number.isInteger(number) || number < 1 || number > 100_000) return null;
-	return (
-		db
-			.select()
-			.from(revisions)
-			.where(and(eq(revisions.designId, designId), eq(revisions.number, number)))
-			.get() ?? null
-	);
+	return revisionByNumber.get({ designId, number }) ?? null;
 }
 
-export function getRevisionById(id: string): Revision | null {
-	return db.select().from(revisions).where(eq(revisions.id, id)).get() ?? null;
-}
+export { getRevisionById };
 
 /** Drafts are private to their author; every other state is public. */
 export function canRead(user: SessionUser | null, r: Revision): boolean {
