@@ -40,25 +40,44 @@ export interface LoadResult {
 	non2xx: number;
 }
 
+/** A request in a load run's cycle: its path (with query) and, for POST, its body. */
+export interface Variant {
+	path?: string;
+	body?: string;
+}
+
 /**
  * autocannon against 127.0.0.1 only: 50 connections for `seconds` (bounded), after a one-second
- * warm-up that is not counted (first requests load modules lazily and let V8 optimise).
+ * warm-up that is not counted (first requests load modules lazily and let V8 optimise). With
+ * `variants`, each connection cycles through them (e.g. one frequency after another), so nothing
+ * the server remembers of an earlier request can stand in for the work.
  */
-export async function load(url: string, seconds: number, opts: { method?: 'GET' | 'POST'; body?: string } = {}): Promise<LoadResult> {
+export async function load(
+	url: string,
+	seconds: number,
+	opts: { method?: 'GET' | 'POST'; body?: string; variants?: Variant[] } = {}
+): Promise<LoadResult> {
 	if (!url.startsWith('http://127.0.0.1:')) throw new Error('benchmarks only target loopback');
 	await run(url, 1, opts);
 	const r = await run(url, seconds, opts);
 	return { rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, errors: r.errors, non2xx: r.non2xx };
 }
 
-function run(url: string, seconds: number, opts: { method?: 'GET' | 'POST'; body?: string }) {
+function run(url: string, seconds: number, opts: { method?: 'GET' | 'POST'; body?: string; variants?: Variant[] }) {
+	const method = opts.method ?? 'GET';
 	return autocannon({
 		url,
 		connections: 50,
 		duration: seconds,
-		method: opts.method ?? 'GET',
+		method,
 		body: opts.body,
 		// The per-browser limiter refuses requests without a user agent.
-		headers: { 'user-agent': 'bandwright-bench', ...(opts.body ? { 'content-type': 'application/json' } : {}) }
+		headers: { 'user-agent': 'bandwright-bench', ...(method === 'POST' ? { 'content-type': 'application/json' } : {}) },
+		...(opts.variants ? { requests: opts.variants.map((v) => ({ method, ...v })) } : {})
 	});
+}
+
+/** `count` frequencies spread over [lo, hi] Hz, rounded to 1 kHz. */
+export function frequencies(lo: number, hi: number, count = 64): number[] {
+	return Array.from({ length: count }, (_, i) => Math.round((lo + ((hi - lo) * i) / (count - 1)) / 1e3) * 1e3);
 }

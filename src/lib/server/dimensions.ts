@@ -3,7 +3,7 @@ import type { RevisionContent } from '$lib/schemas/design';
 import { DomainError } from './errors';
 import { toTableDefinition, unknownCatalogues } from '$lib/rf/revision-table';
 import type { Revision } from './db/schema';
-import { contentOf } from './designs';
+import { contentOf, getRevisionById } from './designs';
 import { Lru } from './lru';
 
 interface Prepared {
@@ -15,18 +15,23 @@ interface Prepared {
 // Submitted revisions never change, so their compiled tables are kept; drafts are keyed by save time.
 const compiled = new Lru<string, Prepared>(500);
 
-function compiledFor(r: Revision): Prepared {
+/** What the cache needs of a revision; the content is read only on a miss (see revisionHead). */
+type RevisionKey = Pick<Revision, 'id' | 'state' | 'updatedAt'> & Partial<Revision>;
+
+function compiledFor(r: RevisionKey): Prepared {
 	const key = r.state === 'draft' ? `${r.id}@${r.updatedAt.getTime()}` : r.id;
 	let t = compiled.get(key);
 	if (!t) {
-		const content = contentOf(r);
+		const full = r.content ? (r as Revision) : getRevisionById(r.id);
+		if (!full) throw new DomainError(404, 'No such design revision.');
+		const content = contentOf(full);
 		t = { table: compileTable(toTableDefinition(content)), unknown: unknownCatalogues(content) };
 		compiled.set(key, t);
 	}
 	return t;
 }
 
-export function computeRevision(r: Revision, opts: EvaluateOptions): TableResult {
+export function computeRevision(r: RevisionKey, opts: EvaluateOptions): TableResult {
 	const { table, unknown } = compiledFor(r);
 	const result = evaluateTable(table, opts);
 	for (const { key, catalogue } of unknown) {
@@ -36,7 +41,7 @@ export function computeRevision(r: Revision, opts: EvaluateOptions): TableResult
 }
 
 /** Band edges for sensitivity tolerances: the revision's claimed band. */
-export function claimBand(r: Revision): [number, number] | undefined {
+export function claimBand(r: Pick<Revision, 'claimLoHz' | 'claimHiHz'>): [number, number] | undefined {
 	return r.claimLoHz && r.claimHiHz ? [r.claimLoHz, r.claimHiHz] : undefined;
 }
 

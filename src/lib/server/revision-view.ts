@@ -34,7 +34,7 @@ export function loadDesignRevision(slug: string, n: string | undefined, user: Se
 }
 
 /** Tolerances answer "stay inside the claimed band" at the design frequency, or the chosen preset. */
-export function bandFor(r: Revision, hz: number, bandId: string | null) {
+export function bandFor(r: Pick<Revision, 'designHz' | 'claimLoHz' | 'claimHiHz'>, hz: number, bandId: string | null) {
 	const preset = bandId ? bandById(bandId) : undefined;
 	const band = preset
 		? ([preset.lo_hz, preset.hi_hz] as [number, number])

@@ -24,8 +24,29 @@ export function getRevision(designId: string, number: number): Revision | null {
 
 export { getRevisionById };
 
+const revisionHeadByNumber = db
+	.select({
+		id: revisions.id,
+		number: revisions.number,
+		state: revisions.state,
+		authorId: revisions.authorId,
+		designHz: revisions.designHz,
+		claimLoHz: revisions.claimLoHz,
+		claimHiHz: revisions.claimHiHz,
+		updatedAt: revisions.updatedAt
+	})
+	.from(revisions)
+	.where(and(eq(revisions.designId, sql.placeholder('designId')), eq(revisions.number, sql.placeholder('number'))))
+	.prepare();
+
+/** A revision without its notes and content: enough to authorize and to find its compiled table. */
+export function getRevisionHead(designId: string, number: number) {
+	if (!Number.isInteger(number) || number < 1 || number > 100_000) return null;
+	return revisionHeadByNumber.get({ designId, number }) ?? null;
+}
+
 /** Drafts are private to their author; every other state is public. */
-export function canRead(user: SessionUser | null, r: Revision): boolean {
+export function canRead(user: SessionUser | null, r: Pick<Revision, 'state' | 'authorId'>): boolean {
 	return r.state !== 'draft' || r.authorId === user?.id;
 }
 

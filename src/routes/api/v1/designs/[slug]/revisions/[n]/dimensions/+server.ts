@@ -3,7 +3,7 @@ import { parseFrequency } from '$lib/rf/frequency-input';
 import { apiError } from '$lib/server/api';
 import { computeRevision } from '$lib/server/dimensions';
 import { getDesignBySlug } from '$lib/server/designs';
-import { canRead, getRevision } from '$lib/server/revisions';
+import { canRead, getRevisionHead } from '$lib/server/revisions';
 import { isLimited } from '$lib/server/rate-limit';
 import { bandFor, parseUnits } from '$lib/server/revision-view';
 import type { RequestHandler } from './$types';
@@ -13,7 +13,7 @@ export const GET: RequestHandler = async (event) => {
 	const { params, url, locals } = event;
 	if (await isLimited('compute', event)) return apiError(429, 'Too many requests. Wait a minute.');
 	const design = getDesignBySlug(params.slug);
-	const r = design ? getRevision(design.id, Number(params.n)) : null;
+	const r = design ? getRevisionHead(design.id, Number(params.n)) : null;
 	if (!design || !r || !canRead(locals.user, r)) return apiError(404, 'No such design revision.');
 	const fText = url.searchParams.get('f');
 	let hz = r.designHz;
