@@ -15,7 +15,7 @@ import { uploadAccess, type UploadKind } from './uploads';
 
 /** One sweep as the design page lists it (no series: the client fetches those). */
 export function measurementSummary(
-	m: MeasurementRow,
+	m: Omit<MeasurementRow, 'metrics'>,
 	uploader: string,
 	r: Pick<Revision, 'state'>
 ) {

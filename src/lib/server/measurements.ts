@@ -221,15 +221,13 @@ export function getMeasurement(id: string) {
 export type MeasurementRow = NonNullable<ReturnType<typeof getMeasurement>>;
 
 // The design page lists metrics only: the stored series (about 34 kB of JSON a sweep) stays in
-// the database, and the query is prepared once.
-const { analysis: _series, ...listedColumns } = getTableColumns(measurements);
+// the database; `metrics` is the analysis without it (kept by a trigger, drizzle/0003).
+const { analysis: _analysis, metrics, ...listedColumns } = getTableColumns(measurements);
 const measurementsOfRevision = db
 	.select({
 		m: {
 			...listedColumns,
-			analysis: sql<Record<string, unknown>>`json_remove(${measurements.analysis}, '$.series')`.mapWith(
-				(v: string) => JSON.parse(v) as Record<string, unknown>
-			)
+			analysis: sql<Record<string, unknown>>`${metrics}`.mapWith((v: string) => JSON.parse(v) as Record<string, unknown>)
 		},
 		uploader: users.displayName
 	})
@@ -240,7 +238,7 @@ const measurementsOfRevision = db
 	.prepare();
 
 /** A revision's sweeps, oldest first, with their metrics but without the plotted series. */
-export function listMeasurementRows(revisionId: string): { m: MeasurementRow; uploader: string }[] {
+export function listMeasurementRows(revisionId: string): { m: Omit<MeasurementRow, 'metrics'>; uploader: string }[] {
 	return measurementsOfRevision.all({ revisionId });
 }
 

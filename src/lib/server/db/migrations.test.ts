@@ -18,7 +18,7 @@ function olderMigrations(count: number): string {
 	return dir;
 }
 
-describe('migration 0002 (listing columns) on a database with data', () => {
+describe('migrations 0002 (listing columns) and 0003 (sweep metrics) on a database with data', () => {
 	it('fills the listing columns and moves the search index to integer row ids', () => {
 		const file = join(temp, 'upgrade.db');
 		const old = openDatabase(file, { migrationsFolder: olderMigrations(2) }).sqlite;
@@ -36,7 +36,7 @@ describe('migration 0002 (listing columns) on a database with data', () => {
 			INSERT INTO measurements (id, revision_id, uploader_id, kind, instrument, file_key, file_name, file_type, file_size, analysis)
 				VALUES ('m1', 'r1', 'u1', 'build_report', 'vna', 'k', 'f.s1p', 't', 1, '{}'),
 				       ('m2', 'r2', 'u1', 'build_report', 'vna', 'k', 'f.s1p', 't', 1, '{}'),
-				       ('m3', 'r1', 'u1', 'measurement', 'vna', 'k', 'f.s1p', 't', 1, '{}');
+				       ('m3', 'r1', 'u1', 'measurement', 'vna', 'k', 'f.s1p', 't', 1, '{"min_vswr":1.2,"series":[[1,2]]}');
 			INSERT INTO design_search (design_id, title, summary, notes) VALUES ('d1', 'Old helix', '', 'wind the tinplate helix');
 		`);
 		old.close();
@@ -52,6 +52,14 @@ describe('migration 0002 (listing columns) on a database with data', () => {
 			.prepare('SELECT d.slug FROM design_search h JOIN designs d ON d.search_rowid = h.rowid WHERE design_search MATCH ?')
 			.all('"tinplate"*');
 		expect(hit).toEqual([{ slug: 'old-helix' }]);
+
+		// Sweep metrics: the analysis without its series, for old rows and new ones.
+		const metricsOf = (id: string) =>
+			JSON.parse((sqlite.prepare('SELECT metrics FROM measurements WHERE id = ?').get(id) as { metrics: string }).metrics);
+		expect(metricsOf('m3')).toEqual({ min_vswr: 1.2 });
+		sqlite.exec(`INSERT INTO measurements (id, revision_id, uploader_id, kind, instrument, file_key, file_name, file_type, file_size, analysis)
+			VALUES ('m4', 'r2', 'u1', 'measurement', 'vna', 'k', 'f.s1p', 't', 1, '{"points":3,"series":[[1,2]]}')`);
+		expect(metricsOf('m4')).toEqual({ points: 3 });
 
 		// A deleted design leaves no index row behind for a later design to inherit.
 		sqlite.exec(`DELETE FROM measurements; DELETE FROM revisions; DELETE FROM designs WHERE id = 'd1'`);

@@ -228,6 +228,8 @@ export const measurements = sqliteTable(
 		fileSize: integer('file_size').notNull(),
 		/** Derived metrics and the downsampled series, computed once at upload. */
 		analysis: text('analysis', { mode: 'json' }).$type<Record<string, unknown>>().notNull(),
+		/** `analysis` without its plotted series, for listings; kept by a trigger (drizzle/0003). */
+		metrics: text('metrics', { mode: 'json' }).$type<Record<string, unknown>>(),
 		claimPass: integer('claim_pass', { mode: 'boolean' }),
 		isDemo: integer('is_demo', { mode: 'boolean' }).notNull().default(false),
 		createdAt: createdAt()
