@@ -83,6 +83,8 @@ async function benchHttp() {
 	try {
 		const u = (p: string) => `http://127.0.0.1:4401${p}`;
 		const health = await load(u('/api/v1/health'), SECONDS);
+		// Context, not a target: the cheapest SSR page this app has (layout, hooks, CSP nonce, no data).
+		const home = await load(u('/'), SECONDS);
 		// Every measured route cycles through 64 target frequencies (2.3–6 GHz), as a reader typing would.
 		const fs = frequencies(2.3e9, 6e9);
 		const evaluate = await load(u('/api/v1/evaluate'), SECONDS, {
@@ -97,10 +99,11 @@ async function benchHttp() {
 		});
 		line('bare node:http (machine ceiling) req/s', bareR.rps.toFixed(0));
 		line('trivial SvelteKit JSON route /api/v1/health req/s', `${health.rps.toFixed(0)}  (p50 ${health.p50} ms, p99 ${health.p99} ms)`);
+		line('home page SSR (the framework floor for a page) req/s', `${home.rps.toFixed(0)}  = ${ratio(home.rps, health.rps)} of health (context)`);
 		line('POST /api/v1/evaluate, 40 rows, 64 frequencies, req/s', `${evaluate.rps.toFixed(0)}  = ${ratio(evaluate.rps, health.rps)} of health (target ≥ 50 %)`);
 		line('GET dimensions API, 40-row design, 64 frequencies, req/s', `${dims.rps.toFixed(0)}  = ${ratio(dims.rps, health.rps)} of health (target ≥ 40 %)`);
 		line('design page SSR, 40-row design, 64 frequencies, req/s', `${pageR.rps.toFixed(0)}  = ${ratio(pageR.rps, health.rps)} of health (target ≥ 25 %)`);
-		for (const [name, r] of Object.entries({ health, evaluate, dims, page: pageR })) {
+		for (const [name, r] of Object.entries({ health, home, evaluate, dims, page: pageR })) {
 			if (r.errors || r.non2xx) console.log(`  warning: ${name} had ${r.errors} errors and ${r.non2xx} non-2xx answers`);
 		}
 	} finally {
