@@ -15,7 +15,7 @@ interface Prepared {
 // Submitted revisions never change, so their compiled tables are kept; drafts are keyed by save time.
 const compiled = new Lru<string, Prepared>(500);
 
-/** What the cache needs of a revision; the content is read only on a miss (see revisionHead). */
+/** What the cache needs of a revision; the content is read only on a miss (see getRevisionHead). */
 type RevisionKey = Pick<Revision, 'id' | 'state' | 'updatedAt'> & Partial<Revision>;
 
 function compiledFor(r: RevisionKey): Prepared {

@@ -96,15 +96,20 @@ export function searchDesigns(query: DesignQuery) {
 	const match = query.q ? ftsQuery(query.q) : null;
 	if (query.q && !match) return { items: [], total: 0, page, pageSize };
 
-	const where: string[] = ['d.listed_revision_id IS NOT NULL'];
+	const where: string[] = [];
 	const args: (string | number)[] = [];
-	if (match) where.unshift('design_search MATCH ?'), args.push(match);
+	const add = (clause: string, ...values: (string | number)[]) => {
+		where.push(clause);
+		args.push(...values);
+	};
+	if (match) add('design_search MATCH ?', match);
+	add('d.listed_revision_id IS NOT NULL');
 	const status = query.status ?? 'active';
-	if (status !== 'all') where.push('d.status = ?'), args.push(status);
-	if (query.family) where.push('d.family = ?'), args.push(query.family);
-	if (query.polarization) where.push('d.polarization = ?'), args.push(query.polarization);
-	if (query.band) where.push(CLAIM_OVERLAPS), args.push(query.band[1], query.band[0]);
-	if (query.containsHz !== undefined) where.push(CLAIM_OVERLAPS), args.push(query.containsHz, query.containsHz);
+	if (status !== 'all') add('d.status = ?', status);
+	if (query.family) add('d.family = ?', query.family);
+	if (query.polarization) add('d.polarization = ?', query.polarization);
+	if (query.band) add(CLAIM_OVERLAPS, query.band[1], query.band[0]);
+	if (query.containsHz !== undefined) add(CLAIM_OVERLAPS, query.containsHz, query.containsHz);
 	const filter = match
 		? `FROM design_search h JOIN designs d ON d.search_rowid = h.rowid WHERE ${where.join(' AND ')}`
 		: `FROM designs d WHERE ${where.join(' AND ')}`;
