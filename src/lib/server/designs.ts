@@ -5,7 +5,7 @@ import type { z } from 'zod';
 import { designMetaSchema, revisionContentSchema, type DesignMeta, type RevisionContent } from '$lib/schemas/design';
 import { newId } from './accounts';
 import { DomainError } from './errors';
-import { slugify } from './slug';
+import { isSlug, slugify } from './slug';
 import { reindexDesign } from './search';
 import { assertCompilable } from './dimensions';
 import type { SessionUser } from './auth';
@@ -123,7 +123,7 @@ const revisionsOfDesign = db
 	.prepare();
 
 export function getDesignBySlug(slug: string): Design | null {
-	if (!/^[a-z0-9-]{1,80}$/.test(slug)) return null;
+	if (!isSlug(slug)) return null;
 	return designBySlug.get({ slug }) ?? null;
 }
 

@@ -4,6 +4,7 @@ import { designs, revisions, type Design, type Revision } from './db/schema';
 import { revisionContentSchema, type RevisionContent } from '$lib/schemas/design';
 import { newId } from './accounts';
 import { DomainError } from './errors';
+import { isSlug } from './slug';
 import { audit } from './audit';
 import { contentOf, getRevisionById, revisionColumns, validated } from './designs';
 import { reindexDesign } from './search';
@@ -24,7 +25,7 @@ export function getRevision(designId: string, number: number): Revision | null {
 
 export { getRevisionById };
 
-const revisionHeadByNumber = db
+const revisionHeadBySlug = db
 	.select({
 		id: revisions.id,
 		number: revisions.number,
@@ -36,13 +37,17 @@ const revisionHeadByNumber = db
 		updatedAt: revisions.updatedAt
 	})
 	.from(revisions)
-	.where(and(eq(revisions.designId, sql.placeholder('designId')), eq(revisions.number, sql.placeholder('number'))))
+	.innerJoin(designs, eq(designs.id, revisions.designId))
+	.where(and(eq(designs.slug, sql.placeholder('slug')), eq(revisions.number, sql.placeholder('number'))))
 	.prepare();
 
-/** A revision without its notes and content: enough to authorize and to find its compiled table. */
-export function getRevisionHead(designId: string, number: number) {
-	if (!Number.isInteger(number) || number < 1 || number > 100_000) return null;
-	return revisionHeadByNumber.get({ designId, number }) ?? null;
+/**
+ * A revision by its design's address and number, without notes and content: enough to authorize
+ * and to find its compiled table, in one lookup.
+ */
+export function getRevisionHead(slug: string, number: number) {
+	if (!isSlug(slug) || !Number.isInteger(number) || number < 1 || number > 100_000) return null;
+	return revisionHeadBySlug.get({ slug, number }) ?? null;
 }
 
 /** Drafts are private to their author; every other state is public. */

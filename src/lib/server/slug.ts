@@ -10,3 +10,6 @@ export function slugify(title: string): string {
 		.replace(/-+$/, '');
 	return s || 'design';
 }
+
+/** Whether a URL segment can be a slug at all (checked before any lookup). */
+export const isSlug = (s: string): boolean => /^[a-z0-9-]{1,80}$/.test(s);

@@ -2,7 +2,6 @@ import { json } from '@sveltejs/kit';
 import { parseFrequency } from '$lib/rf/frequency-input';
 import { apiError } from '$lib/server/api';
 import { computeRevision } from '$lib/server/dimensions';
-import { getDesignBySlug } from '$lib/server/designs';
 import { canRead, getRevisionHead } from '$lib/server/revisions';
 import { isLimited } from '$lib/server/rate-limit';
 import { bandFor, parseUnits } from '$lib/server/revision-view';
@@ -12,9 +11,8 @@ import type { RequestHandler } from './$types';
 export const GET: RequestHandler = async (event) => {
 	const { params, url, locals } = event;
 	if (await isLimited('compute', event)) return apiError(429, 'Too many requests. Wait a minute.');
-	const design = getDesignBySlug(params.slug);
-	const r = design ? getRevisionHead(design.id, Number(params.n)) : null;
-	if (!design || !r || !canRead(locals.user, r)) return apiError(404, 'No such design revision.');
+	const r = getRevisionHead(params.slug, Number(params.n));
+	if (!r || !canRead(locals.user, r)) return apiError(404, 'No such design revision.');
 	const fText = url.searchParams.get('f');
 	let hz = r.designHz;
 	if (fText !== null) {
