@@ -261,21 +261,11 @@ export function evaluateTable(t: CompiledTable, opts: EvaluateOptions): TableRes
 	return result;
 }
 
-const TABLE_CACHE_LIMIT = 256;
-const tableCache = new Map<string, CompiledTable>();
-
 /**
- * compileTable then evaluateTable. The compiled table is kept in a small LRU keyed by the
- * definition's JSON, so an API client retyping the frequency does not recompile; formulas also
- * come from the parse cache.
+ * compileTable then evaluateTable, for one-off use (tests, scripts). Servers keep compiled tables
+ * themselves (src/lib/server/dimensions.ts, src/lib/server/evaluate.ts); formulas come from the
+ * parse cache either way.
  */
 export function computeTable(def: TableDefinition, opts: EvaluateOptions): TableResult {
-	const key = JSON.stringify(def);
-	let compiled = tableCache.get(key);
-	if (compiled) tableCache.delete(key);
-	else compiled = compileTable(def);
-	tableCache.set(key, compiled);
-	if (tableCache.size > TABLE_CACHE_LIMIT)
-		tableCache.delete(tableCache.keys().next().value as string);
-	return evaluateTable(compiled, opts);
+	return evaluateTable(compileTable(def), opts);
 }

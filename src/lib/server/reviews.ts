@@ -24,8 +24,6 @@ export interface ReviewOptions {
 	policy?: ApprovalPolicy;
 }
 
-const displayName = ownerName;
-
 // Prepared once; better-sqlite3 has one connection, so they also serve inside transactions.
 const verdictsQuery = db
 	.select()
@@ -55,7 +53,7 @@ export function decisionFor(r: Revision, policy: ApprovalPolicy = APPROVAL_POLIC
 	const decision = decideRevisionState(list, policy, r.authorId);
 	// The policy names reviewers by id; people read names.
 	let reason = decision.reason;
-	for (const v of decision.current) reason = reason.split(v.reviewerId).join(displayName(v.reviewerId));
+	for (const v of decision.current) reason = reason.split(v.reviewerId).join(ownerName(v.reviewerId));
 	return { ...decision, reason };
 }
 
@@ -168,7 +166,7 @@ export function confirmReject(user: SessionUser, reviewId: string, options: Revi
 			{ actorId: user.id, action: 'review.reject_confirm', targetType: 'review', targetId: review.id, details: { revision: r.id, number: r.number } },
 			tx
 		);
-		applyDecision(tx, user.id, r, design, 'returned', `Rejection by ${displayName(review.reviewerId)} confirmed by ${user.displayName}.`, now);
+		applyDecision(tx, user.id, r, design, 'returned', `Rejection by ${ownerName(review.reviewerId)} confirmed by ${user.displayName}.`, now);
 		if (options.notify !== false) notifyRejectConfirmed({ design, revision: r, moderatorName: user.displayName }, tx);
 		return design.id;
 	});
@@ -190,9 +188,9 @@ export function reviewsFor(revisionId: string, verdicts: Verdicts = verdictsOf(r
 		id: v.id,
 		verdict: v.verdict,
 		summary: v.summary,
-		reviewerName: displayName(v.reviewerId),
+		reviewerName: ownerName(v.reviewerId),
 		createdAt: v.createdAt.toISOString(),
-		confirmedBy: v.confirmedById ? displayName(v.confirmedById) : null,
+		confirmedBy: v.confirmedById ? ownerName(v.confirmedById) : null,
 		confirmedAt: v.confirmedAt?.toISOString() ?? null
 	}));
 }
