@@ -46,25 +46,32 @@ export interface Variant {
 	body?: string;
 }
 
+export interface LoadOptions {
+	method?: 'GET' | 'POST';
+	body?: string;
+	/** Each connection cycles through these (e.g. 64 frequencies, as readers repeating common bands). */
+	variants?: Variant[];
+	/** Called for every request: a request nobody sent before, so nothing the server kept can answer it. */
+	next?: () => Variant;
+}
+
 /**
  * autocannon against 127.0.0.1 only: 50 connections for `seconds` (bounded), after a one-second
- * warm-up that is not counted (first requests load modules lazily and let V8 optimise). With
- * `variants`, each connection cycles through them (e.g. one frequency after another), so nothing
- * the server remembers of an earlier request can stand in for the work.
+ * warm-up that is not counted (first requests load modules lazily and let V8 optimise).
  */
-export async function load(
-	url: string,
-	seconds: number,
-	opts: { method?: 'GET' | 'POST'; body?: string; variants?: Variant[] } = {}
-): Promise<LoadResult> {
+export async function load(url: string, seconds: number, opts: LoadOptions = {}): Promise<LoadResult> {
 	if (!url.startsWith('http://127.0.0.1:')) throw new Error('benchmarks only target loopback');
 	await run(url, 1, opts);
 	const r = await run(url, seconds, opts);
 	return { rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, errors: r.errors, non2xx: r.non2xx };
 }
 
-function run(url: string, seconds: number, opts: { method?: 'GET' | 'POST'; body?: string; variants?: Variant[] }) {
+function run(url: string, seconds: number, opts: LoadOptions) {
 	const method = opts.method ?? 'GET';
+	const next = opts.next;
+	const requests = next
+		? [{ method, setupRequest: (req: object) => ({ ...req, ...next() }) }]
+		: opts.variants?.map((v) => ({ method, ...v }));
 	return autocannon({
 		url,
 		connections: 50,
@@ -73,11 +80,17 @@ function run(url: string, seconds: number, opts: { method?: 'GET' | 'POST'; body
 		body: opts.body,
 		// The per-browser limiter refuses requests without a user agent.
 		headers: { 'user-agent': 'bandwright-bench', ...(method === 'POST' ? { 'content-type': 'application/json' } : {}) },
-		...(opts.variants ? { requests: opts.variants.map((v) => ({ method, ...v })) } : {})
+		...(requests ? { requests } : {})
 	});
 }
 
 /** `count` frequencies spread over [lo, hi] Hz, rounded to 1 kHz. */
 export function frequencies(lo: number, hi: number, count = 64): number[] {
 	return Array.from({ length: count }, (_, i) => Math.round((lo + ((hi - lo) * i) / (count - 1)) / 1e3) * 1e3);
+}
+
+/** Frequencies no request has used before: 1 kHz steps from `lo`, about 3.7 million of them. */
+export function freshFrequencies(lo = 2.3e9): () => number {
+	let i = 0;
+	return () => lo + (i++ % 3_700_000) * 1e3;
 }

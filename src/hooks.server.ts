@@ -8,6 +8,7 @@ import {
 	validateSessionToken
 } from '$lib/server/auth';
 import { startMailWorker } from '$lib/server/mailer';
+import { pageCache } from '$lib/server/page-cache';
 
 export const init = async () => {
 	startMailWorker();
@@ -65,7 +66,7 @@ const headers: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
-export const handle = sequence(requestId, session, apiOrigin, headers);
+export const handle = sequence(requestId, session, apiOrigin, headers, pageCache);
 
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
 	const errorId = event.locals.requestId ?? crypto.randomUUID();

@@ -68,6 +68,13 @@ test('review round trip: comment, return, reply, r2, compare at 5.8 GHz, approve
 	const author = await as(browser, DEMO.author);
 	const { slug, title } = await importDesign(author);
 
+	// A reader without an account opens it twice (the second view is served from the page cache).
+	const reader = await (await browser.newContext()).newPage();
+	for (let i = 0; i < 2; i++) {
+		await reader.goto(`/designs/${slug}`);
+		await expect(reader.getByTestId('revision-state')).toHaveText(/r1/);
+	}
+
 	// The reviewer finds it in the queue (filtered by family) and opens it.
 	const reviewer = await as(browser, DEMO.reviewer);
 	await reviewer.goto('/review?family=patch');
@@ -157,6 +164,10 @@ test('review round trip: comment, return, reply, r2, compare at 5.8 GHz, approve
 	await reviewer.goto(`/designs/${slug}`);
 	await expect(reviewer.getByTestId('revision-state')).toHaveText(/r2 · Approved/);
 	await expect(reviewer.getByTestId('reviews-panel')).toContainText('Built and measured; approve.');
+	// The reader without an account sees the approval at once: the write moved the page stamp on.
+	await reader.goto(`/designs/${slug}`);
+	await expect(reader.getByTestId('revision-state')).toHaveText(/r2 · Approved/);
+	await expect(reader.getByTestId('reviews-panel')).toContainText('Built and measured; approve.');
 
 	// The author got a mail for each comment and each review.
 	await expect

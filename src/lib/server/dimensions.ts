@@ -40,6 +40,22 @@ export function computeRevision(r: RevisionKey, opts: EvaluateOptions): TableRes
 	return result;
 }
 
+// The API's answer for one view of a submitted revision never changes either, so its JSON text is
+// kept (about 8 kB for 40 rows). Drafts are computed every time.
+const answers = new Lru<string, string>(1000);
+
+/** computeRevision as JSON text, as the dimensions API sends it. */
+export function revisionTableJson(r: RevisionKey, opts: EvaluateOptions): string {
+	if (r.state === 'draft') return JSON.stringify(computeRevision(r, opts));
+	const key = `${r.id} ${opts.frequencyHz} ${opts.units ?? 'mm'} ${opts.bandHz?.join(' ') ?? ''}`;
+	let text = answers.get(key);
+	if (text === undefined) {
+		text = JSON.stringify(computeRevision(r, opts));
+		answers.set(key, text);
+	}
+	return text;
+}
+
 /** Band edges for sensitivity tolerances: the revision's claimed band. */
 export function claimBand(r: Pick<Revision, 'claimLoHz' | 'claimHiHz'>): [number, number] | undefined {
 	return r.claimLoHz && r.claimHiHz ? [r.claimLoHz, r.claimHiHz] : undefined;

@@ -294,6 +294,16 @@ export const mailQueue = sqliteTable('mail_queue', {
 	createdAt: createdAt()
 });
 
+/**
+ * One row whose counter every write to what public pages show moves on (triggers in
+ * drizzle/0004_page_stamp.sql, never written by the app). Cached pages remember the stamp they were
+ * rendered at and are thrown away when it has moved (src/lib/server/page-cache.ts).
+ */
+export const pageStamp = sqliteTable('page_stamp', {
+	id: integer('id').primaryKey(),
+	stamp: integer('stamp').notNull()
+});
+
 export type User = typeof users.$inferSelect;
 export type Design = typeof designs.$inferSelect;
 export type Revision = typeof revisions.$inferSelect;

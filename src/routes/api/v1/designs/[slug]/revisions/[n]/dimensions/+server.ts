@@ -1,7 +1,6 @@
-import { json } from '@sveltejs/kit';
 import { parseFrequency } from '$lib/rf/frequency-input';
 import { apiError } from '$lib/server/api';
-import { computeRevision } from '$lib/server/dimensions';
+import { revisionTableJson } from '$lib/server/dimensions';
 import { canRead, getRevisionHead } from '$lib/server/revisions';
 import { isLimited } from '$lib/server/rate-limit';
 import { bandFor, parseUnits } from '$lib/server/revision-view';
@@ -26,8 +25,12 @@ export const GET: RequestHandler = async (event) => {
 	}
 	const { band, unknown } = bandFor(r, hz, url.searchParams.get('band'));
 	if (unknown) return apiError(400, 'Unknown band preset.', { field: 'band' });
-	const result = computeRevision(r, { frequencyHz: hz, units: parseUnits(units), bandHz: band });
-	return json(result, {
-		headers: { 'cache-control': r.state === 'draft' ? 'private, no-store' : 'public, max-age=300' }
+	const body = revisionTableJson(r, { frequencyHz: hz, units: parseUnits(units), bandHz: band });
+	return new Response(body, {
+		headers: {
+			'content-type': 'application/json',
+			'content-length': String(Buffer.byteLength(body)),
+			'cache-control': r.state === 'draft' ? 'private, no-store' : 'public, max-age=300'
+		}
 	});
 };

@@ -1,0 +1,155 @@
+import { beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import type { RequestEvent } from '@sveltejs/kit';
+import { sqlite } from './db';
+import { SESSION_COOKIE, type SessionUser } from './auth';
+import { clearPageCache, currentStamp, pageCache, pageCacheSize } from './page-cache';
+import { createDesign, getDesignBySlug, starterContent } from './designs';
+import { startRevision, submitRevision } from './revisions';
+import { setRole } from './users';
+import { member } from './upload-test-setup';
+
+// Tables whose rows some public page shows: a write to any of them must move the stamp on.
+const SHOWN = ['users', 'designs', 'revisions', 'reviews', 'comments', 'measurements', 'attachments', 'retirements'];
+// Tables no public page reads.
+const NOT_SHOWN = ['sessions', 'email_tokens', 'audit_log', 'mail_queue', 'page_stamp', '__drizzle_migrations'];
+
+describe('page stamp triggers', () => {
+	it('every table is either stamped or known not to be shown (a new table must be placed)', () => {
+		const tables = sqlite
+			.prepare("SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' AND name NOT LIKE 'design_search%'")
+			.pluck()
+			.all() as string[];
+		expect([...tables].sort()).toEqual([...SHOWN, ...NOT_SHOWN].sort());
+	});
+
+	it('each shown table has an insert, update and delete trigger that moves the stamp', () => {
+		const rows = sqlite
+			.prepare("SELECT tbl_name, sql FROM sqlite_master WHERE type = 'trigger' AND sql LIKE '%page_stamp%'")
+			.all() as { tbl_name: string; sql: string }[];
+		for (const table of SHOWN) {
+			for (const op of ['INSERT', 'UPDATE', 'DELETE']) {
+				const found = rows.filter((r) => r.tbl_name === table && r.sql.includes(`AFTER ${op} ON`));
+				expect(found, `${op} trigger on ${table}`).toHaveLength(1);
+				expect(found[0].sql).toContain('stamp = stamp + 1');
+			}
+		}
+		expect(rows.filter((r) => NOT_SHOWN.includes(r.tbl_name))).toEqual([]);
+	});
+
+	it('authoring, submitting and a role change each move the stamp; a session does not', async () => {
+		const before = currentStamp();
+		const author = await member('stamp-author@example.org');
+		const afterAccount = currentStamp();
+		expect(afterAccount).toBeGreaterThan(before);
+
+		const { revisionId } = createDesign(author, { title: 'Stamp test', family: 'biquad', polarization: 'linear', summary: '' }, starterContent(2.45e9));
+		const afterCreate = currentStamp();
+		expect(afterCreate).toBeGreaterThan(afterAccount);
+		submitRevision(author, revisionId);
+		const afterSubmit = currentStamp();
+		expect(afterSubmit).toBeGreaterThan(afterCreate);
+		setRole(null, author.id, 'reviewer');
+		expect(currentStamp()).toBeGreaterThan(afterSubmit);
+
+		const s = currentStamp();
+		sqlite.prepare("INSERT INTO mail_queue (to_address, subject, body, next_attempt_at, created_at) VALUES ('a@b.c', 's', 'b', 0, 0)").run();
+		expect(currentStamp()).toBe(s);
+	});
+});
+
+// A stand-in for SvelteKit's event: only what the hook reads.
+function event(path: string, opts: { route?: string | null; method?: string; cookie?: string; data?: boolean } = {}) {
+	const url = new URL(`http://127.0.0.1${path}`);
+	return {
+		url,
+		request: new Request(url, { method: opts.method ?? 'GET' }),
+		route: { id: opts.route === undefined ? '/designs/[slug]' : opts.route },
+		isDataRequest: opts.data ?? false,
+		isSubRequest: false,
+		cookies: { get: (name: string) => (name === SESSION_COOKIE ? opts.cookie : undefined) }
+	} as unknown as RequestEvent;
+}
+
+let renders = 0;
+function renderer(status = 200, headers: Record<string, string> = {}) {
+	return vi.fn(async () => {
+		renders += 1;
+		return new Response(`<p>render ${renders}</p>`, { status, headers: { 'content-type': 'text/html', ...headers } });
+	});
+}
+const text = async (r: Response) => r.text();
+
+describe('pageCache hook', () => {
+	let author: SessionUser;
+	beforeAll(async () => {
+		author = await member('cache-author@example.org');
+	});
+	beforeEach(() => clearPageCache());
+
+	it('serves a reader without a session the same bytes until a write moves the stamp', async () => {
+		const resolve = renderer();
+		const first = await text(await pageCache({ event: event('/designs/x?f=5.8e9'), resolve }));
+		const second = await text(await pageCache({ event: event('/designs/x?f=5.8e9'), resolve }));
+		expect(second).toBe(first);
+		expect(resolve).toHaveBeenCalledTimes(1);
+
+		// Another query string is another page.
+		await pageCache({ event: event('/designs/x?f=2.4e9'), resolve });
+		expect(resolve).toHaveBeenCalledTimes(2);
+
+		const { revisionId } = createDesign(author, { title: 'Cache test', family: 'biquad', polarization: 'linear', summary: '' }, starterContent(5.8e9));
+		const third = await text(await pageCache({ event: event('/designs/x?f=5.8e9'), resolve }));
+		expect(resolve).toHaveBeenCalledTimes(3);
+		expect(third).not.toBe(first);
+
+		submitRevision(author, revisionId);
+		startRevision(author, getDesignBySlug('cache-test')!);
+		await pageCache({ event: event('/designs/x?f=5.8e9'), resolve });
+		expect(resolve).toHaveBeenCalledTimes(4);
+	});
+
+	it('keeps the headers of the render, the CSP hash and ETag among them', async () => {
+		const resolve = renderer(200, { etag: '"abc"', 'content-security-policy': "script-src 'sha256-x'" });
+		await pageCache({ event: event('/designs/y'), resolve });
+		const hit = await pageCache({ event: event('/designs/y'), resolve });
+		expect(resolve).toHaveBeenCalledTimes(1);
+		expect(hit.headers.get('etag')).toBe('"abc"');
+		expect(hit.headers.get('content-security-policy')).toBe("script-src 'sha256-x'");
+	});
+
+	it('never keeps pages for signed-in readers, other methods, data requests or other routes', async () => {
+		const cases = [
+			event('/designs/z', { cookie: 'token' }),
+			event('/designs/z', { method: 'POST' }),
+			event('/designs/z/__data.json', { data: true }),
+			event('/designs', { route: '/designs' }),
+			event('/nowhere', { route: null })
+		];
+		for (const e of cases) {
+			const resolve = renderer();
+			await pageCache({ event: e, resolve });
+			await pageCache({ event: e, resolve });
+			expect(resolve, e.url.pathname).toHaveBeenCalledTimes(2);
+		}
+		expect(pageCacheSize().entries).toBe(0);
+	});
+
+	it('never keeps a response that sets a cookie or is not a 200', async () => {
+		for (const resolve of [renderer(404), renderer(200, { 'set-cookie': 'a=b' })]) {
+			await pageCache({ event: event('/designs/w'), resolve });
+			await pageCache({ event: event('/designs/w'), resolve });
+			expect(resolve).toHaveBeenCalledTimes(2);
+		}
+		expect(pageCacheSize().entries).toBe(0);
+	});
+
+	it('stays within its entry bound, dropping the least recently used page first', async () => {
+		const resolve = renderer();
+		for (let i = 0; i < 1005; i++) await pageCache({ event: event(`/designs/p?f=${i}`), resolve });
+		expect(pageCacheSize().entries).toBe(1000);
+		await pageCache({ event: event('/designs/p?f=0'), resolve });
+		expect(resolve).toHaveBeenCalledTimes(1006);
+		await pageCache({ event: event('/designs/p?f=1004'), resolve });
+		expect(resolve).toHaveBeenCalledTimes(1006);
+	});
+});
