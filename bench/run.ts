@@ -79,7 +79,7 @@ async function benchHttp() {
 	const bare = await startBareServer(4402);
 	const bareR = await load('http://127.0.0.1:4402/', SECONDS);
 	bare.kill();
-	const server = await startBuiltServer(4401, { DATABASE_URL: process.env.DATABASE_URL!, DATA_DIR: dataDir, RATE_LIMIT_FACTOR: '1000000' });
+	const server = await startBuiltServer(4401, { DATABASE_URL: process.env.DATABASE_URL!, DATA_DIR: dataDir, RATE_LIMIT_FACTOR: '1000000', BENCH_ROUTES: '1' });
 	try {
 		const u = (p: string) => `http://127.0.0.1:4401${p}`;
 		const health = await load(u('/api/v1/health'), SECONDS);
@@ -93,6 +93,8 @@ async function benchHttp() {
 		const dimsPath = (f: number) => `/api/v1/designs/bench-forty/revisions/1/dimensions?f=${f}`;
 		const pagePath = (f: number) => `/designs/bench-forty?f=${f}`;
 		const evaluate = await load(u('/api/v1/evaluate'), SECONDS, { method: 'POST', variants: fs.map((f) => ({ body: evalBody(f) })) });
+		// The floor under the evaluate API: the same rate limit and 3 kB body read and parsed, nothing computed.
+		const postFloor = await load(u('/dev/bench/post-floor'), SECONDS, { method: 'POST', variants: fs.map((f) => ({ body: evalBody(f) })) });
 		const evaluateFresh = await load(u('/api/v1/evaluate'), SECONDS, { method: 'POST', next: ((f) => () => ({ body: evalBody(f()) }))(freshFrequencies()) });
 		const dims = await load(u(dimsPath(2.45e9)), SECONDS, { variants: fs.map((f) => ({ path: dimsPath(f) })) });
 		const dimsFresh = await load(u(dimsPath(2.45e9)), SECONDS, { next: ((f) => () => ({ path: dimsPath(f()) }))(freshFrequencies()) });
@@ -102,13 +104,14 @@ async function benchHttp() {
 		line('bare node:http (machine ceiling) req/s', bareR.rps.toFixed(0));
 		line('trivial SvelteKit JSON route /api/v1/health req/s', `${health.rps.toFixed(0)}  (p50 ${health.p50} ms, p99 ${health.p99} ms)`);
 		line('home page SSR (the framework floor for a page) req/s', `${of(home)} (context)`);
+		line('POST floor: rate limit + read and parse the same body', `${of(postFloor)} (context)`);
 		line('POST /api/v1/evaluate, 40 rows, 64 frequencies, req/s', of(evaluate, '50 %'));
 		line('  … a new frequency every request', of(evaluateFresh));
 		line('GET dimensions API, 40 rows, 64 frequencies, req/s', of(dims, '40 %'));
 		line('  … a new frequency every request (computed each time)', of(dimsFresh));
 		line('design page, no session, 64 frequencies, req/s', of(pageR, '25 %'));
 		line('  … a new frequency every request (SSR each time)', of(pageFresh));
-		for (const [name, r] of Object.entries({ health, home, evaluate, evaluateFresh, dims, dimsFresh, page: pageR, pageFresh })) {
+		for (const [name, r] of Object.entries({ health, home, postFloor, evaluate, evaluateFresh, dims, dimsFresh, page: pageR, pageFresh })) {
 			if (r.errors || r.non2xx) console.log(`  warning: ${name} had ${r.errors} errors and ${r.non2xx} non-2xx answers`);
 		}
 	} finally {

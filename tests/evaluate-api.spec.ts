@@ -50,3 +50,8 @@ test('the dimensions API rescales a stored revision and rejects bad parameters',
 	expect((await request.get('/api/v1/designs/no-such/revisions/1/dimensions')).status()).toBe(404);
 	expect((await request.get('/api/v1/designs/dipole-868/revisions/99/dimensions')).status()).toBe(404);
 });
+
+test('the benchmark floor route does not exist outside the benchmark', async ({ request }) => {
+	const res = await request.post('/dev/bench/post-floor', { data: { frequency_hz: 1 } });
+	expect(res.status()).toBe(404);
+});

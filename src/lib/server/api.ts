@@ -5,6 +5,13 @@ export function apiError(status: number, message: string, extra: Record<string, 
 	return json({ error: { message, ...extra } }, { status });
 }
 
+/** A JSON response from text already serialized (SvelteKit's json() would encode it twice). */
+export function jsonText(body: string, headers: Record<string, string> = {}): Response {
+	return new Response(body, {
+		headers: { 'content-type': 'application/json', 'content-length': String(Buffer.byteLength(body)), ...headers }
+	});
+}
+
 /** Reads a JSON body with a size cap; a bad body is a DomainError(400) naming "body". */
 export async function readJson(request: Request, maxBytes = 256 * 1024): Promise<unknown> {
 	const type = request.headers.get('content-type') ?? '';

@@ -11,11 +11,15 @@ import { Lru } from './lru';
 
 const compiledTables = new Lru<string, CompiledTable>(256);
 
-/** The key of the table part of a body (what it says, not how it is spaced); null if not an object. */
+/**
+ * The key of the table part of a body (what it says, not how it is spaced); null if not an object.
+ * Usual tables (a few kB) are their own key, which the map compares whole; only large ones are hashed.
+ */
 function tableKey(body: unknown): string | null {
 	if (typeof body !== 'object' || body === null || Array.isArray(body)) return null;
 	const { parameters, rows } = body as Record<string, unknown>;
-	return hashKey(JSON.stringify([parameters ?? null, rows ?? null]));
+	const text = JSON.stringify([parameters ?? null, rows ?? null]);
+	return text.length <= 16_384 ? text : hashKey(text);
 }
 
 /** @throws DomainError(400) naming the field for anything wrong with the body. */

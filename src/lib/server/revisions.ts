@@ -72,7 +72,8 @@ export function saveDraft(user: SessionUser, revisionId: string, contentIn: Revi
 		assertEditable(user, r);
 		const updated = tx
 			.update(revisions)
-			.set({ ...revisionColumns(content), updatedAt: new Date() })
+			// Strictly later than the last save: compiled drafts are cached by this time (dimensions.ts).
+			.set({ ...revisionColumns(content), updatedAt: new Date(Math.max(Date.now(), r.updatedAt.getTime() + 1)) })
 			// The state in the WHERE makes a concurrent submit win cleanly.
 			.where(and(eq(revisions.id, r.id), eq(revisions.state, 'draft')))
 			.returning()

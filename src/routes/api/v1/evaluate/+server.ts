@@ -1,5 +1,4 @@
-import { json } from '@sveltejs/kit';
-import { apiError, handleApi, readJson } from '$lib/server/api';
+import { apiError, handleApi, jsonText, readJson } from '$lib/server/api';
 import { evaluateBody } from '$lib/server/evaluate';
 import { isLimited } from '$lib/server/rate-limit';
 import type { RequestHandler } from './$types';
@@ -7,5 +6,5 @@ import type { RequestHandler } from './$types';
 export const POST: RequestHandler = (event) =>
 	handleApi(async () => {
 		if (await isLimited('compute', event)) return apiError(429, 'Too many requests. Wait a minute.', { field: 'body' });
-		return json(evaluateBody(await readJson(event.request)));
+		return jsonText(JSON.stringify(evaluateBody(await readJson(event.request))));
 	});

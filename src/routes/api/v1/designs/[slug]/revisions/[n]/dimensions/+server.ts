@@ -1,5 +1,5 @@
 import { parseFrequency } from '$lib/rf/frequency-input';
-import { apiError } from '$lib/server/api';
+import { apiError, jsonText } from '$lib/server/api';
 import { revisionTableJson } from '$lib/server/dimensions';
 import { canRead, getRevisionHead } from '$lib/server/revisions';
 import { isLimited } from '$lib/server/rate-limit';
@@ -26,11 +26,5 @@ export const GET: RequestHandler = async (event) => {
 	const { band, unknown } = bandFor(r, hz, url.searchParams.get('band'));
 	if (unknown) return apiError(400, 'Unknown band preset.', { field: 'band' });
 	const body = revisionTableJson(r, { frequencyHz: hz, units: parseUnits(units), bandHz: band });
-	return new Response(body, {
-		headers: {
-			'content-type': 'application/json',
-			'content-length': String(Buffer.byteLength(body)),
-			'cache-control': r.state === 'draft' ? 'private, no-store' : 'public, max-age=300'
-		}
-	});
+	return jsonText(body, { 'cache-control': r.state === 'draft' ? 'private, no-store' : 'public, max-age=300' });
 };
