@@ -4,7 +4,7 @@ import { DomainError } from './errors';
 import { toTableDefinition, unknownCatalogues } from '$lib/rf/revision-table';
 import type { Revision } from './db/schema';
 import { contentOf, getRevisionById } from './designs';
-import { Lru } from './lru';
+import { Doorkeeper, Lru } from './lru';
 
 interface Prepared {
 	table: CompiledTable;
@@ -41,8 +41,9 @@ export function computeRevision(r: RevisionKey, opts: EvaluateOptions): TableRes
 }
 
 // The API's answer for one view of a submitted revision never changes either, so its JSON text is
-// kept (about 8 kB for 40 rows). Drafts are computed every time.
+// kept (about 8 kB for 40 rows) once that view is asked for a second time. Drafts are computed each time.
 const answers = new Lru<string, string>(1000);
+const asked = new Doorkeeper(4096);
 
 /** computeRevision as JSON text, as the dimensions API sends it. */
 export function revisionTableJson(r: RevisionKey, opts: EvaluateOptions): string {
@@ -51,7 +52,7 @@ export function revisionTableJson(r: RevisionKey, opts: EvaluateOptions): string
 	let text = answers.get(key);
 	if (text === undefined) {
 		text = JSON.stringify(computeRevision(r, opts));
-		answers.set(key, text);
+		if (asked.seen(key)) answers.set(key, text);
 	}
 	return text;
 }

@@ -1,12 +1,14 @@
 import type { Handle, RequestEvent } from '@sveltejs/kit';
 import { sqlite } from './db';
 import { SESSION_COOKIE } from './auth';
+import { Doorkeeper } from './lru';
 
 /**
  * Design pages as a reader without a session sees them, kept in memory. An entry is the exact
  * response a render gave, remembered with the page stamp it was rendered at; any write to what a
  * public page shows moves the stamp on (triggers in drizzle/0004_page_stamp.sql, from this process
- * or any other), and an entry with an older stamp is rendered again. Signed-in readers, form posts,
+ * or any other), and an entry with an older stamp is rendered again. A page is kept from the second
+ * time it is asked for. Signed-in readers, form posts,
  * client-side data requests and any response that sets a cookie or is not a 200 are never kept.
  */
 export const CACHED_ROUTES: ReadonlySet<string> = new Set(['/designs/[slug]', '/designs/[slug]/r/[n]']);
@@ -22,6 +24,8 @@ interface Entry {
 }
 
 const entries = new Map<string, Entry>();
+// A page is kept from its second request on: pages asked for once cost no memory.
+let asked = new Doorkeeper(4 * MAX_ENTRIES);
 let bytes = 0;
 
 const stampQuery = sqlite.prepare('SELECT stamp FROM page_stamp WHERE id = 1').pluck();
@@ -74,6 +78,7 @@ export const pageCache: Handle = async ({ event, resolve }) => {
 	}
 	const response = await resolve(event);
 	if (response.status !== 200 || response.headers.has('set-cookie') || !response.body) return response;
+	if (!asked.seen(key)) return response;
 	const body = new Uint8Array(await response.arrayBuffer());
 	const headers = [...response.headers];
 	remember(key, { stamp, body, headers });
@@ -88,4 +93,5 @@ export function pageCacheSize(): { entries: number; bytes: number } {
 export function clearPageCache(): void {
 	entries.clear();
 	bytes = 0;
+	asked = new Doorkeeper(4 * MAX_ENTRIES);
 }
