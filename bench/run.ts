@@ -8,7 +8,7 @@ import { join } from 'node:path';
 import { benchEngine, BENCH_TABLE } from './engine';
 import { benchSweep } from './sweep';
 import { benchMeasurements } from './measurements';
-import { freshFrequencies, frequencies, load, startBareServer, startBuiltServer } from './server';
+import { frequencies, load, startBareServer, startBuiltServer } from './server';
 import type { RevisionContent } from '../src/lib/schemas/design';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 5);
@@ -89,17 +89,19 @@ async function benchHttp() {
 		// choosing common bands and following shared links do; and a frequency nobody asked for before
 		// on every request, so that what the server keeps (page cache, kept API answers) cannot answer.
 		const fs = frequencies(2.3e9, 6e9);
-		const evalBody = (f: number) => JSON.stringify({ frequency_hz: f, parameters: BENCH_TABLE.parameters, rows: BENCH_TABLE.rows });
-		const dimsPath = (f: number) => `/api/v1/designs/bench-forty/revisions/1/dimensions?f=${f}`;
-		const pagePath = (f: number) => `/designs/bench-forty?f=${f}`;
+		// f: a number, or "{f}" where the load worker puts a new frequency into each request.
+		const table = JSON.stringify({ parameters: BENCH_TABLE.parameters, rows: BENCH_TABLE.rows });
+		const evalBody = (f: number | string) => `{"frequency_hz":${f},${table.slice(1)}`;
+		const dimsPath = (f: number | string) => `/api/v1/designs/bench-forty/revisions/1/dimensions?f=${f}`;
+		const pagePath = (f: number | string) => `/designs/bench-forty?f=${f}`;
 		const evaluate = await load(u('/api/v1/evaluate'), SECONDS, { method: 'POST', variants: fs.map((f) => ({ body: evalBody(f) })) });
 		// The floor under the evaluate API: the same rate limit and 3 kB body read and parsed, nothing computed.
 		const postFloor = await load(u('/dev/bench/post-floor'), SECONDS, { method: 'POST', variants: fs.map((f) => ({ body: evalBody(f) })) });
-		const evaluateFresh = await load(u('/api/v1/evaluate'), SECONDS, { method: 'POST', next: ((f) => () => ({ body: evalBody(f()) }))(freshFrequencies()) });
+		const evaluateFresh = await load(u('/api/v1/evaluate'), SECONDS, { method: 'POST', fresh: { body: evalBody('{f}') } });
 		const dims = await load(u(dimsPath(2.45e9)), SECONDS, { variants: fs.map((f) => ({ path: dimsPath(f) })) });
-		const dimsFresh = await load(u(dimsPath(2.45e9)), SECONDS, { next: ((f) => () => ({ path: dimsPath(f()) }))(freshFrequencies()) });
+		const dimsFresh = await load(u(dimsPath(2.45e9)), SECONDS, { fresh: { path: dimsPath('{f}') } });
 		const pageR = await load(u(pagePath(2.45e9)), SECONDS, { variants: fs.map((f) => ({ path: pagePath(f) })) });
-		const pageFresh = await load(u(pagePath(2.45e9)), SECONDS, { next: ((f) => () => ({ path: pagePath(f()) }))(freshFrequencies()) });
+		const pageFresh = await load(u(pagePath(2.45e9)), SECONDS, { fresh: { path: pagePath('{f}') } });
 		// Health again at the end: ratios use the mean of both runs, so drift during the run cancels.
 		const healthLast = await load(u('/api/v1/health'), SECONDS);
 		const health = { rps: (healthFirst.rps + healthLast.rps) / 2 };

@@ -1,5 +1,4 @@
 /** Helpers to run the built server and load generators on loopback only, bounded in time. */
-import autocannon from 'autocannon';
 import { spawn, type ChildProcess } from 'node:child_process';
 
 export async function waitFor(url: string, timeoutMs = 30_000): Promise<void> {
@@ -48,40 +47,30 @@ export interface Variant {
 
 export interface LoadOptions {
 	method?: 'GET' | 'POST';
-	body?: string;
 	/** Each connection cycles through these (e.g. 64 frequencies, as readers repeating common bands). */
 	variants?: Variant[];
-	/** Called for every request: a request nobody sent before, so nothing the server kept can answer it. */
-	next?: () => Variant;
+	/**
+	 * A request nobody sent before, every time, so nothing the server kept can answer it: `{f}` in
+	 * the path or body becomes a new frequency in 2.3–6 GHz for each request (bench/load-worker.ts).
+	 */
+	fresh?: Variant;
 }
 
 /**
  * autocannon against 127.0.0.1 only: 50 connections for `seconds` (bounded), after a one-second
- * warm-up that is not counted (first requests load modules lazily and let V8 optimise).
+ * warm-up that is not counted (first requests load modules lazily and let V8 optimise). It runs in
+ * a process of its own (bench/load-worker.ts), so the bench's own heap and collections do not
+ * slow the load generator between one measurement and the next.
  */
 export async function load(url: string, seconds: number, opts: LoadOptions = {}): Promise<LoadResult> {
 	if (!url.startsWith('http://127.0.0.1:')) throw new Error('benchmarks only target loopback');
-	await run(url, 1, opts);
-	const r = await run(url, seconds, opts);
-	return { rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, errors: r.errors, non2xx: r.non2xx };
-}
-
-function run(url: string, seconds: number, opts: LoadOptions) {
-	const method = opts.method ?? 'GET';
-	const next = opts.next;
-	const requests = next
-		? [{ method, setupRequest: (req: object) => ({ ...req, ...next() }) }]
-		: opts.variants?.map((v) => ({ method, ...v }));
-	return autocannon({
-		url,
-		connections: 50,
-		duration: seconds,
-		method,
-		body: opts.body,
-		// The per-browser limiter refuses requests without a user agent.
-		headers: { 'user-agent': 'bandwright-bench', ...(method === 'POST' ? { 'content-type': 'application/json' } : {}) },
-		...(requests ? { requests } : {})
-	});
+	const child = spawn(process.execPath, ['--import', 'tsx', 'bench/load-worker.ts'], { stdio: ['pipe', 'pipe', 'inherit'] });
+	child.stdin!.end(JSON.stringify({ url, seconds, ...opts }));
+	let out = '';
+	child.stdout!.on('data', (d) => (out += d));
+	const code = await new Promise<number | null>((done) => child.on('close', done));
+	if (code !== 0) throw new Error(`load worker for ${url} exited with ${code}`);
+	return JSON.parse(out) as LoadResult;
 }
 
 /** `count` frequencies spread over [lo, hi] Hz, rounded to 1 kHz. */
@@ -89,8 +78,3 @@ export function frequencies(lo: number, hi: number, count = 64): number[] {
 	return Array.from({ length: count }, (_, i) => Math.round((lo + ((hi - lo) * i) / (count - 1)) / 1e3) * 1e3);
 }
 
-/** Frequencies no request has used before: 1 kHz steps from `lo`, about 3.7 million of them. */
-export function freshFrequencies(lo = 2.3e9): () => number {
-	let i = 0;
-	return () => lo + (i++ % 3_700_000) * 1e3;
-}
