@@ -16,10 +16,9 @@ const config = {
 		adapter: adapter({ out: process.env.BUILD_DIR || 'build' }),
 		outDir: process.env.KIT_OUT_DIR || '.svelte-kit',
 		alias: { $content: 'content' },
-		// Hashes, not nonces: a page kept by src/lib/server/page-cache.ts must be the same bytes for
-		// every reader, and its hydration script's hash travels with it in the header.
+		// Nonces for dynamic pages; src/lib/server/page-cache.ts gives each copy of a kept page a fresh one.
 		csp: {
-			mode: 'hash',
+			mode: 'auto',
 			directives: {
 				'default-src': ['self'],
 				'script-src': ['self'],

@@ -43,7 +43,13 @@ test('an author creates a design, adds rows with live values, saves and submits;
 });
 
 test('a reader rescales to 5.8 GHz without a reload, switches to inches, downloads the build sheet', async ({ page }) => {
-	await page.goto('/designs/biquad-2g4');
+	// The third view is a kept copy (page cache): it must hydrate under its own CSP nonce like a render.
+	const nonces = new Set<string>();
+	for (let i = 0; i < 3; i++) {
+		const res = await page.goto('/designs/biquad-2g4');
+		nonces.add(/'nonce-([^']+)'/.exec(res!.headers()['content-security-policy'])![1]);
+	}
+	expect(nonces.size).toBe(3);
 	await expect(page.getByTestId('cautions')).toBeVisible();
 	const marker = await page.evaluate(() => ((window as unknown as { marker: number }).marker = Math.random()));
 	const input = page.getByLabel(/frequency/i).first();

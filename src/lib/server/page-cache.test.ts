@@ -116,14 +116,31 @@ describe('pageCache hook', () => {
 		expect(resolve).toHaveBeenCalledTimes(5);
 	});
 
-	it('keeps the headers of the render, the CSP hash and ETag among them', async () => {
-		const resolve = renderer(200, { etag: '"abc"', 'content-security-policy': "script-src 'sha256-x'" });
+	it('keeps the headers of the render, and gives every copy a CSP nonce of its own in header and page', async () => {
+		const resolve = vi.fn(async () => {
+			renders += 1;
+			const n = 'RenderNonce+/0123456789==';
+			return new Response(`<script nonce="${n}">start()</script><link nonce="${n}">`, {
+				headers: { 'content-type': 'text/html', 'x-extra': 'kept', etag: '"abc"', 'content-security-policy': `script-src 'self' 'nonce-${n}'; style-src 'self'` }
+			});
+		});
 		await ask('/designs/y', resolve);
 		await ask('/designs/y', resolve);
-		const hit = await ask('/designs/y', resolve);
+		const nonces = new Set<string>();
+		for (let i = 0; i < 3; i++) {
+			const hit = await ask('/designs/y', resolve);
+			const html = await hit.text();
+			const inHeader = /'nonce-([^']+)'/.exec(hit.headers.get('content-security-policy')!)![1];
+			expect(html).toBe(`<script nonce="${inHeader}">start()</script><link nonce="${inHeader}">`);
+			expect(hit.headers.get('content-security-policy')).toBe(`script-src 'self' 'nonce-${inHeader}'; style-src 'self'`);
+			expect(hit.headers.get('content-length')).toBe(String(Buffer.byteLength(html)));
+			expect(hit.headers.get('x-extra')).toBe('kept');
+			expect(hit.headers.get('etag')).toBeNull();
+			nonces.add(inHeader);
+		}
 		expect(resolve).toHaveBeenCalledTimes(2);
-		expect(hit.headers.get('etag')).toBe('"abc"');
-		expect(hit.headers.get('content-security-policy')).toBe("script-src 'sha256-x'");
+		expect(nonces.size).toBe(3);
+		expect(nonces.has('RenderNonce+/0123456789==')).toBe(false);
 	});
 
 	it('never keeps pages for signed-in readers, other methods, data requests or other routes', async () => {
