@@ -40,14 +40,19 @@ function freshRequests(method: string, template: NonNullable<LoadOptions['fresh'
 
 function run(job: Job, seconds: number) {
 	const method = job.method ?? 'GET';
-	const requests = job.fresh ? freshRequests(method, job.fresh) : job.variants?.map((v) => ({ method, ...v }));
+	const requests = job.fresh
+		? freshRequests(method, job.fresh)
+		: job.variants?.map((v) => ({ method, ...v }));
 	return autocannon({
 		url: job.url,
 		connections: 50,
 		duration: seconds,
 		method,
 		// The per-browser limiter refuses requests without a user agent.
-		headers: { 'user-agent': 'bandwright-bench', ...(method === 'POST' ? { 'content-type': 'application/json' } : {}) },
+		headers: {
+			'user-agent': 'bandwright-bench',
+			...(method === 'POST' ? { 'content-type': 'application/json' } : {})
+		},
 		...(requests ? { requests } : {})
 	});
 }
@@ -55,5 +60,11 @@ function run(job: Job, seconds: number) {
 const job = await readJob();
 await run(job, 1);
 const r = await run(job, job.seconds);
-const result: LoadResult = { rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, errors: r.errors, non2xx: r.non2xx };
+const result: LoadResult = {
+	rps: r.requests.average,
+	p50: r.latency.p50,
+	p99: r.latency.p99,
+	errors: r.errors,
+	non2xx: r.non2xx
+};
 process.stdout.write(JSON.stringify(result));

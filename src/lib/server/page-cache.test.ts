@@ -9,14 +9,32 @@ import { setRole } from './users';
 import { member } from './upload-test-setup';
 
 // Tables whose rows some public page shows: a write to any of them must move the stamp on.
-const SHOWN = ['users', 'designs', 'revisions', 'reviews', 'comments', 'measurements', 'attachments', 'retirements'];
+const SHOWN = [
+	'users',
+	'designs',
+	'revisions',
+	'reviews',
+	'comments',
+	'measurements',
+	'attachments',
+	'retirements'
+];
 // Tables no public page reads.
-const NOT_SHOWN = ['sessions', 'email_tokens', 'audit_log', 'mail_queue', 'page_stamp', '__drizzle_migrations'];
+const NOT_SHOWN = [
+	'sessions',
+	'email_tokens',
+	'audit_log',
+	'mail_queue',
+	'page_stamp',
+	'__drizzle_migrations'
+];
 
 describe('page stamp triggers', () => {
 	it('every table is either stamped or known not to be shown (a new table must be placed)', () => {
 		const tables = sqlite
-			.prepare("SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' AND name NOT LIKE 'design_search%'")
+			.prepare(
+				"SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' AND name NOT LIKE 'design_search%'"
+			)
 			.pluck()
 			.all() as string[];
 		expect([...tables].sort()).toEqual([...SHOWN, ...NOT_SHOWN].sort());
@@ -24,7 +42,9 @@ describe('page stamp triggers', () => {
 
 	it('each shown table has an insert, update and delete trigger that moves the stamp', () => {
 		const rows = sqlite
-			.prepare("SELECT tbl_name, sql FROM sqlite_master WHERE type = 'trigger' AND sql LIKE '%page_stamp%'")
+			.prepare(
+				"SELECT tbl_name, sql FROM sqlite_master WHERE type = 'trigger' AND sql LIKE '%page_stamp%'"
+			)
 			.all() as { tbl_name: string; sql: string }[];
 		for (const table of SHOWN) {
 			for (const op of ['INSERT', 'UPDATE', 'DELETE']) {
@@ -42,7 +62,11 @@ describe('page stamp triggers', () => {
 		const afterAccount = currentStamp();
 		expect(afterAccount).toBeGreaterThan(before);
 
-		const { revisionId } = createDesign(author, { title: 'Stamp test', family: 'biquad', polarization: 'linear', summary: '' }, starterContent(2.45e9));
+		const { revisionId } = createDesign(
+			author,
+			{ title: 'Stamp test', family: 'biquad', polarization: 'linear', summary: '' },
+			starterContent(2.45e9)
+		);
 		const afterCreate = currentStamp();
 		expect(afterCreate).toBeGreaterThan(afterAccount);
 		submitRevision(author, revisionId);
@@ -52,13 +76,20 @@ describe('page stamp triggers', () => {
 		expect(currentStamp()).toBeGreaterThan(afterSubmit);
 
 		const s = currentStamp();
-		sqlite.prepare("INSERT INTO mail_queue (to_address, subject, body, next_attempt_at, created_at) VALUES ('a@b.c', 's', 'b', 0, 0)").run();
+		sqlite
+			.prepare(
+				"INSERT INTO mail_queue (to_address, subject, body, next_attempt_at, created_at) VALUES ('a@b.c', 's', 'b', 0, 0)"
+			)
+			.run();
 		expect(currentStamp()).toBe(s);
 	});
 });
 
 // A stand-in for SvelteKit's event: only what the hook reads.
-function event(path: string, opts: { route?: string | null; method?: string; cookie?: string; data?: boolean } = {}) {
+function event(
+	path: string,
+	opts: { route?: string | null; method?: string; cookie?: string; data?: boolean } = {}
+) {
 	const url = new URL(`http://127.0.0.1${path}`);
 	return {
 		url,
@@ -74,7 +105,10 @@ let renders = 0;
 function renderer(status = 200, headers: Record<string, string> = {}) {
 	return vi.fn(async () => {
 		renders += 1;
-		return new Response(`<p>render ${renders}</p>`, { status, headers: { 'content-type': 'text/html', ...headers } });
+		return new Response(`<p>render ${renders}</p>`, {
+			status,
+			headers: { 'content-type': 'text/html', ...headers }
+		});
 	});
 }
 const text = async (r: Response) => r.text();
@@ -86,7 +120,8 @@ describe('pageCache hook', () => {
 	});
 	beforeEach(() => clearPageCache());
 
-	const ask = (path: string, resolve: ReturnType<typeof renderer>, opts = {}) => pageCache({ event: event(path, opts), resolve });
+	const ask = (path: string, resolve: ReturnType<typeof renderer>, opts = {}) =>
+		pageCache({ event: event(path, opts), resolve });
 
 	it('keeps a page from its second request on, the same bytes until a write moves the stamp', async () => {
 		const resolve = renderer();
@@ -102,7 +137,11 @@ describe('pageCache hook', () => {
 		await ask('/designs/x?f=2.4e9', resolve);
 		expect(resolve).toHaveBeenCalledTimes(3);
 
-		const { revisionId } = createDesign(author, { title: 'Cache test', family: 'biquad', polarization: 'linear', summary: '' }, starterContent(5.8e9));
+		const { revisionId } = createDesign(
+			author,
+			{ title: 'Cache test', family: 'biquad', polarization: 'linear', summary: '' },
+			starterContent(5.8e9)
+		);
 		const fourth = await text(await ask('/designs/x?f=5.8e9', resolve));
 		expect(resolve).toHaveBeenCalledTimes(4);
 		expect(fourth).not.toBe(second);
@@ -121,7 +160,12 @@ describe('pageCache hook', () => {
 			renders += 1;
 			const n = 'RenderNonce+/0123456789==';
 			return new Response(`<script nonce="${n}">start()</script><link nonce="${n}">`, {
-				headers: { 'content-type': 'text/html', 'x-extra': 'kept', etag: '"abc"', 'content-security-policy': `script-src 'self' 'nonce-${n}'; style-src 'self'` }
+				headers: {
+					'content-type': 'text/html',
+					'x-extra': 'kept',
+					etag: '"abc"',
+					'content-security-policy': `script-src 'self' 'nonce-${n}'; style-src 'self'`
+				}
 			});
 		});
 		await ask('/designs/y', resolve);
@@ -132,7 +176,9 @@ describe('pageCache hook', () => {
 			const html = await hit.text();
 			const inHeader = /'nonce-([^']+)'/.exec(hit.headers.get('content-security-policy')!)![1];
 			expect(html).toBe(`<script nonce="${inHeader}">start()</script><link nonce="${inHeader}">`);
-			expect(hit.headers.get('content-security-policy')).toBe(`script-src 'self' 'nonce-${inHeader}'; style-src 'self'`);
+			expect(hit.headers.get('content-security-policy')).toBe(
+				`script-src 'self' 'nonce-${inHeader}'; style-src 'self'`
+			);
 			expect(hit.headers.get('content-length')).toBe(String(Buffer.byteLength(html)));
 			expect(hit.headers.get('x-extra')).toBe('kept');
 			expect(hit.headers.get('etag')).toBeNull();

@@ -12,7 +12,10 @@ import { Doorkeeper } from './lru';
  * time it is asked for; each copy served gets a fresh CSP nonce. Signed-in readers, form posts,
  * client-side data requests and any response that sets a cookie or is not a 200 are never kept.
  */
-export const CACHED_ROUTES: ReadonlySet<string> = new Set(['/designs/[slug]', '/designs/[slug]/r/[n]']);
+export const CACHED_ROUTES: ReadonlySet<string> = new Set([
+	'/designs/[slug]',
+	'/designs/[slug]/r/[n]'
+]);
 
 /** Bounds: a 40-row design page is about 50 kB. */
 const MAX_ENTRIES = 1000;
@@ -82,7 +85,8 @@ export const pageCache: Handle = async ({ event, resolve }) => {
 		return serve(hit);
 	}
 	const response = await resolve(event);
-	if (response.status !== 200 || response.headers.has('set-cookie') || !response.body) return response;
+	if (response.status !== 200 || response.headers.has('set-cookie') || !response.body)
+		return response;
 	if (!asked.seen(key)) return response;
 	const html = await response.text();
 	const entry = keep(html, response.headers, stamp);
@@ -99,7 +103,9 @@ function keep(html: string, responseHeaders: Headers, stamp: number): Entry {
 	const header = responseHeaders.get('content-security-policy') ?? '';
 	const nonce = /'nonce-([^']+)'/.exec(header)?.[1];
 	const parts = (nonce ? html.split(nonce) : [html]).map((p) => Buffer.from(p));
-	const headers = [...responseHeaders].filter(([name]) => name !== 'etag' && name !== 'content-security-policy' && name !== 'content-length');
+	const headers = [...responseHeaders].filter(
+		([name]) => name !== 'etag' && name !== 'content-security-policy' && name !== 'content-length'
+	);
 	return {
 		stamp,
 		parts,

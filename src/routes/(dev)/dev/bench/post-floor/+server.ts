@@ -11,7 +11,8 @@ import type { RequestHandler } from './$types';
 export const POST: RequestHandler = (event) => {
 	if (env.BENCH_ROUTES !== '1') error(404, 'Not found');
 	return handleApi(async () => {
-		if (await isLimited('compute', event)) return apiError(429, 'Too many requests.', { field: 'body' });
+		if (await isLimited('compute', event))
+			return apiError(429, 'Too many requests.', { field: 'body' });
 		const body = await readJson(event.request);
 		return json({ ok: typeof body === 'object' });
 	});
