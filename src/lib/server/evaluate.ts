@@ -1,6 +1,6 @@
 /**
  * POST /api/v1/evaluate's work: validate, compile and evaluate a client's table. A table that was
- * validated and compiled before is found by a hash of its JSON, so a client retyping the
+ * validated and compiled before is found by its JSON (see tableKey), so a client retyping the
  * frequency pays only for evaluation (the table is parsed and checked once, not per keystroke).
  */
 import { parseEvaluateOptions, parseEvaluateRequest, toTableInput } from '$lib/rf/evaluate-request';

@@ -12,7 +12,7 @@ import { Doorkeeper } from './lru';
  * time it is asked for; each copy served gets a fresh CSP nonce. Signed-in readers, form posts,
  * client-side data requests and any response that sets a cookie or is not a 200 are never kept.
  */
-export const CACHED_ROUTES: ReadonlySet<string> = new Set([
+const CACHED_ROUTES: ReadonlySet<string> = new Set([
 	'/designs/[slug]',
 	'/designs/[slug]/r/[n]'
 ]);

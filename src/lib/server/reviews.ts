@@ -1,5 +1,5 @@
 /** Reviews and verdicts: the one place that writes the reviews table and decides revision states. */
-import { and, asc, desc, eq, inArray, isNull, ne, sql } from 'drizzle-orm';
+import { and, asc, eq, inArray, isNull, ne, sql } from 'drizzle-orm';
 import { db } from './db';
 import { comments, designs, reviews, revisions, users, type Design, type Revision } from './db/schema';
 import { APPROVAL_POLICY, decideRevisionState, type ApprovalPolicy, type PolicyState } from '$lib/review-policy';
@@ -43,14 +43,13 @@ function verdictsOf(revisionId: string) {
 
 type Verdicts = ReturnType<typeof verdictsOf>;
 
+/** Verdicts as the approval policy reads them. */
+const policyVerdicts = (verdicts: Verdicts) =>
+	verdicts.map((v) => ({ reviewerId: v.reviewerId, verdict: v.verdict, createdAt: v.createdAt.getTime() }));
+
 /** Where the policy puts a revision with these reviews (authors' own verdicts never count). */
 export function decisionFor(r: Revision, policy: ApprovalPolicy = APPROVAL_POLICY, verdicts: Verdicts = verdictsOf(r.id)) {
-	const list = verdicts.map((v) => ({
-		reviewerId: v.reviewerId,
-		verdict: v.verdict,
-		createdAt: v.createdAt.getTime()
-	}));
-	const decision = decideRevisionState(list, policy, r.authorId);
+	const decision = decideRevisionState(policyVerdicts(verdicts), policy, r.authorId);
 	// The policy names reviewers by id; people read names.
 	let reason = decision.reason;
 	for (const v of decision.current) reason = reason.split(v.reviewerId).join(ownerName(v.reviewerId));
@@ -128,7 +127,7 @@ export function submitReview(
 			tx
 		);
 		const decision = decideRevisionState(
-			verdictsOf(r.id).map((v) => ({ reviewerId: v.reviewerId, verdict: v.verdict, createdAt: v.createdAt.getTime() })),
+			policyVerdicts(verdictsOf(r.id)),
 			options.policy ?? APPROVAL_POLICY,
 			r.authorId
 		);

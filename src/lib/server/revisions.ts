@@ -18,8 +18,11 @@ const revisionByNumber = db
 	.where(and(eq(revisions.designId, sql.placeholder('designId')), eq(revisions.number, sql.placeholder('number'))))
 	.prepare();
 
+/** Whether a number can name a revision at all (checked before any lookup). */
+const isRevisionNumber = (n: number): boolean => Number.isInteger(n) && n >= 1 && n <= 100_000;
+
 export function getRevision(designId: string, number: number): Revision | null {
-	if (!Number.isInteger(number) || number < 1 || number > 100_000) return null;
+	if (!isRevisionNumber(number)) return null;
 	return revisionByNumber.get({ designId, number }) ?? null;
 }
 
@@ -46,7 +49,7 @@ const revisionHeadBySlug = db
  * and to find its compiled table, in one lookup.
  */
 export function getRevisionHead(slug: string, number: number) {
-	if (!isSlug(slug) || !Number.isInteger(number) || number < 1 || number > 100_000) return null;
+	if (!isSlug(slug) || !isRevisionNumber(number)) return null;
 	return revisionHeadBySlug.get({ slug, number }) ?? null;
 }
 

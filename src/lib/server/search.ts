@@ -132,6 +132,7 @@ export function searchDesigns(query: DesignQuery) {
 	).all(...args, pageSize, (page - 1) * pageSize) as ListingRow[];
 	const total = (prepared(`SELECT count(*) AS n ${filter}`).get(...args) as { n: number }).n;
 	const texts = match ? indexedTexts(rows) : new Map<number, string[]>();
+	const words = match ? queryWords(query.q!) : [];
 	const items = rows.map((d) => {
 		const text = texts.get(d.search_rowid);
 		return {
@@ -146,7 +147,7 @@ export function searchDesigns(query: DesignQuery) {
 			owner: d.owner,
 			createdAt: new Date(d.created_at).toISOString(),
 			buildReports: d.build_reports,
-			snippet: text && query.q ? makeSnippet(text, queryWords(query.q)) : null,
+			snippet: text ? makeSnippet(text, words) : null,
 			revisionNumber: d.revision_number,
 			claimLoHz: d.claim_lo_hz,
 			claimHiHz: d.claim_hi_hz

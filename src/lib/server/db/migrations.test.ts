@@ -18,7 +18,7 @@ function olderMigrations(count: number): string {
 	return dir;
 }
 
-describe('migrations 0002 (listing columns) and 0003 (sweep metrics) on a database with data', () => {
+describe('migrations 0002 (listing columns), 0003 (sweep metrics) and 0004 (page stamp) on a database with data', () => {
 	it('fills the listing columns and moves the search index to integer row ids', () => {
 		const file = join(temp, 'upgrade.db');
 		const old = openDatabase(file, { migrationsFolder: olderMigrations(2) }).sqlite;
@@ -48,6 +48,12 @@ describe('migrations 0002 (listing columns) and 0003 (sweep metrics) on a databa
 		expect(rows[0]).toMatchObject({ id: 'd1', listed_revision_id: 'r1', listed_lo_hz: 430e6, listed_hi_hz: 440e6, build_reports: 2 });
 		expect(rows[1]).toMatchObject({ id: 'd2', listed_revision_id: null, build_reports: 0 });
 		expect(new Set(rows.map((r) => r.search_rowid)).size).toBe(2);
+		// The page stamp: one row, moved on by writes to what pages show.
+		const stamp = () => (sqlite.prepare('SELECT stamp FROM page_stamp').all() as { stamp: number }[]).map((s) => s.stamp);
+		const [before] = stamp();
+		expect(stamp()).toHaveLength(1);
+		sqlite.exec(`UPDATE designs SET title = 'Old helix, rewound' WHERE id = 'd1'`);
+		expect(stamp()).toEqual([before + 1]);
 		const hit = sqlite
 			.prepare('SELECT d.slug FROM design_search h JOIN designs d ON d.search_rowid = h.rowid WHERE design_search MATCH ?')
 			.all('"tinplate"*');
