@@ -12,6 +12,8 @@ import { frequencies, load, startBareServer, startBuiltServer } from './server';
 import type { RevisionContent } from '../src/lib/schemas/design';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 5);
+// BENCH_PORT (and the port after it) let parallel work run side by side.
+const PORT = Number(process.env.BENCH_PORT ?? 4401);
 const dataDir = mkdtempSync(join(tmpdir(), 'bandwright-bench-'));
 process.env.DATABASE_URL = join(dataDir, 'bench.db');
 process.env.DATA_DIR = dataDir;
@@ -76,12 +78,12 @@ async function main() {
 
 async function benchHttp() {
 	console.log('== HTTP (autocannon -c 50, %d s each after 1 s warm-up, loopback)', SECONDS);
-	const bare = await startBareServer(4402);
-	const bareR = await load('http://127.0.0.1:4402/', SECONDS);
+	const bare = await startBareServer(PORT + 1);
+	const bareR = await load(`http://127.0.0.1:${PORT + 1}/`, SECONDS);
 	bare.kill();
-	const server = await startBuiltServer(4401, { DATABASE_URL: process.env.DATABASE_URL!, DATA_DIR: dataDir, RATE_LIMIT_FACTOR: '1000000', BENCH_ROUTES: '1' });
+	const server = await startBuiltServer(PORT, { DATABASE_URL: process.env.DATABASE_URL!, DATA_DIR: dataDir, RATE_LIMIT_FACTOR: '1000000', BENCH_ROUTES: '1' });
 	try {
-		const u = (p: string) => `http://127.0.0.1:4401${p}`;
+		const u = (p: string) => `http://127.0.0.1:${PORT}${p}`;
 		const healthFirst = await load(u('/api/v1/health'), SECONDS);
 		// Context, not a target: the cheapest SSR page this app has (layout, hooks, CSP nonce, no data).
 		const home = await load(u('/'), SECONDS);
