@@ -16,7 +16,7 @@ const config = {
 		adapter: adapter({ out: process.env.BUILD_DIR || 'build' }),
 		outDir: process.env.KIT_OUT_DIR || '.svelte-kit',
 		alias: { $content: 'content' },
-		// Nonces for dynamic pages; src/lib/server/page-cache.ts gives each copy of a kept page a fresh one.
+		// Nonces for dynamic pages; src/lib/server/http/page-cache.ts gives each copy of a kept page a fresh one.
 		csp: {
 			mode: 'auto',
 			directives: {

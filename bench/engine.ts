@@ -3,7 +3,7 @@
  * waveguide feed; demo data, not a real design), evaluated at 1000 frequencies after one compile.
  * Run: npx tsx bench/engine.ts
  */
-import { compileTable, evaluateTable, type TableDefinition } from '../src/lib/rf/table';
+import { compileTable, evaluateTable, type TableDefinition } from '../src/lib/rf/tables/table';
 
 export const BENCH_TABLE: TableDefinition = {
 	parameters: [

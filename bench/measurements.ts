@@ -24,7 +24,7 @@ async function photo24mp(): Promise<Buffer> {
 export async function benchMeasurements(): Promise<Record<string, number>> {
 	// attachments.ts opens the database on import: keep the bench away from any real one
 	process.env.DATABASE_URL ??= ':memory:';
-	const { processImage } = await import('../src/lib/server/attachments');
+	const { processImage } = await import('../src/lib/server/measurements/attachments');
 	const input = await photo24mp();
 	const times: number[] = [];
 	const rssBefore = process.memoryUsage().rss;

@@ -57,11 +57,11 @@ async function main() {
 	if (!wanted('http') && !wanted('search')) return;
 
 	// Fixtures through the server's own modules (after DATABASE_URL is set).
-	const { seedDemo } = await import('../src/lib/server/seed');
-	const { createDesign } = await import('../src/lib/server/designs');
-	const { submitRevision } = await import('../src/lib/server/revisions');
-	const { findUserByEmail } = await import('../src/lib/server/accounts');
-	const { toSessionUser } = await import('../src/lib/server/auth');
+	const { seedDemo } = await import('../src/lib/server/seed/demo');
+	const { createDesign } = await import('../src/lib/server/designs/designs');
+	const { submitRevision } = await import('../src/lib/server/designs/revisions');
+	const { findUserByEmail } = await import('../src/lib/server/accounts/accounts');
+	const { toSessionUser } = await import('../src/lib/server/accounts/auth');
 	const { benchSearch } = await import('./search');
 	await seedDemo(() => {});
 	const owner = toSessionUser(findUserByEmail('priya@lanternhill.example')!);

@@ -1,9 +1,9 @@
 /** 10 000 generated designs (not real designs), then the median time of typical queries. */
 import { sqlite } from '../src/lib/server/db';
-import { createDesign, starterContent } from '../src/lib/server/designs';
-import { submitRevision } from '../src/lib/server/revisions';
-import { searchDesigns } from '../src/lib/server/search';
-import type { SessionUser } from '../src/lib/server/auth';
+import { createDesign, starterContent } from '../src/lib/server/designs/designs';
+import { submitRevision } from '../src/lib/server/designs/revisions';
+import { searchDesigns } from '../src/lib/server/designs/search';
+import type { SessionUser } from '../src/lib/server/accounts/auth';
 
 const WORDS = ['copper', 'reflector', 'tinplate', 'balun', 'coax', 'washer', 'standoff', 'helix', 'patch', 'dipole', 'radial', 'feed', 'probe', 'solder', 'epoxy', 'laminate', 'sleeve', 'choke', 'mast', 'clamp'];
 const FAMILIES = ['biquad', 'patch', 'helical', 'dipole', 'ground_plane', 'yagi_uda'] as const;

@@ -1,6 +1,6 @@
 import { pathToFileURL } from 'node:url';
-import { analyzeSweep, parseSweep } from '../src/lib/rf/sweep';
-import { syntheticResonatorSweep, toTouchstone } from '../src/lib/rf/synthetic-sweep';
+import { analyzeSweep, parseSweep } from '../src/lib/rf/sweeps/sweep';
+import { syntheticResonatorSweep, toTouchstone } from '../src/lib/rf/sweeps/synthetic';
 
 const RUNS = 9;
 const TARGET_MS = 150;

@@ -1,6 +1,6 @@
 // npm run user:role -- <email> <role>   (creates the first moderator; the change is audited)
-import { findUserByEmail } from '$lib/server/accounts';
-import { setRole } from '$lib/server/users';
+import { findUserByEmail } from '$lib/server/accounts/accounts';
+import { setRole } from '$lib/server/accounts/users';
 import { ROLES, type Role } from '$lib/server/db/schema';
 
 const [email, role] = process.argv.slice(2);

@@ -1,5 +1,5 @@
 // See https://svelte.dev/docs/kit/types#app.d.ts
-import type { SessionUser, Session } from '$lib/server/auth';
+import type { SessionUser, Session } from '$lib/server/accounts/auth';
 
 declare global {
 	namespace App {

@@ -6,9 +6,9 @@ import {
 	clearSessionCookie,
 	setSessionCookie,
 	validateSessionToken
-} from '$lib/server/auth';
-import { startMailWorker } from '$lib/server/mailer';
-import { pageCache } from '$lib/server/page-cache';
+} from '$lib/server/accounts/auth';
+import { startMailWorker } from '$lib/server/mail/send';
+import { pageCache } from '$lib/server/http/page-cache';
 
 export const init = async () => {
 	startMailWorker();

@@ -1,7 +1,7 @@
 import { expect, test } from '@playwright/test';
 import { PDFDocument } from 'pdf-lib';
 import { BASE, DEMO, signIn, unique } from './helpers';
-import { XSS_VECTORS } from '../src/lib/server/xss-corpus';
+import { XSS_VECTORS } from '../src/lib/testing/xss-corpus';
 
 const form = { origin: BASE, accept: 'text/html' };
 

@@ -9,9 +9,9 @@ import {
 	resonanceRows,
 	solidPng,
 	touchstone
-} from '../src/lib/server/upload-fixtures';
+} from '../src/lib/testing/upload-fixtures';
 
-const fixture = (name: string) => readFileSync(`src/lib/rf/fixtures/${name}`);
+const fixture = (name: string) => readFileSync(`src/lib/testing/sweeps/${name}`);
 // Resonance at 2450 MHz, Q 8, R = Z0: VSWR ≤ 2 from about 2345 to 2559 MHz ([calc], see measurements.test.ts)
 const PASSING = touchstone(resonanceRows(2450, 8, 50, 2200, 2700, 401));
 // Resonance at 2300 MHz: the VSWR ≤ 2 band ends near 2403 MHz, short of a 2.5 GHz band edge

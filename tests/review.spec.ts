@@ -1,6 +1,6 @@
 import { expect, test, type Browser, type Page } from '@playwright/test';
 import { BASE, DEMO, mailsTo, signIn, unique } from './helpers';
-import { XSS_VECTORS } from '../src/lib/server/xss-corpus';
+import { XSS_VECTORS } from '../src/lib/testing/xss-corpus';
 
 const FORM = { origin: BASE, accept: 'text/html' };
 

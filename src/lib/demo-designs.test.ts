@@ -7,10 +7,10 @@ import { readdirSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { parseDesignFile, writeDesignFile, type DesignFile } from './design-file';
-import { C } from './rf/constants';
-import { P01, P11_PRIME, patchWidth } from './rf/families';
-import { toTableDefinition } from './rf/revision-table';
-import { computeTable, type TableResult } from './rf/table';
+import { C } from './rf/units/constants';
+import { P01, P11_PRIME, patchWidth } from './rf/formulas/families';
+import { toTableDefinition } from './rf/tables/revision-table';
+import { computeTable, type TableResult } from './rf/tables/table';
 
 const DIR = fileURLToPath(new URL('../../content/designs/', import.meta.url));
 const FILE_NAME = /^([a-z0-9]+(?:-[a-z0-9]+)*)\.r([1-9]\d*)\.md$/;

@@ -4,7 +4,7 @@
  */
 import { parseDocument, stringify } from 'yaml';
 import type { Document } from 'yaml';
-import { parseFrequency } from './rf/frequency-input';
+import { parseFrequency } from './rf/units/frequency';
 import { designMetaSchema, revisionContentSchema } from './schemas/design';
 import type { DesignMeta, RevisionContent } from './schemas/design';
 

@@ -2,7 +2,7 @@
  * The draft editor works on text: every cell is a string, exactly as typed, so a form that fails
  * validation comes back with what the author entered. These functions convert to and from content.
  */
-import { formatFrequency, parseFrequency } from './rf/frequency-input';
+import { formatFrequency, parseFrequency } from './rf/units/frequency';
 import { revisionContentSchema, type RevisionContent, type RowKindValue } from './schemas/design';
 
 export interface EditorParameter { key: string; label: string; value: string; unit: string; ratio_lo: string; ratio_hi: string }

@@ -1,5 +1,5 @@
 /** Words for sweeps on the design page: the claim check verdict and return loss at a VSWR ceiling. */
-import { formatFrequency } from '$lib/rf/frequency-input';
+import { formatFrequency } from '$lib/rf/units/frequency';
 
 export interface ClaimView {
 	pass: boolean;

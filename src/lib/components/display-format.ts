@@ -1,5 +1,5 @@
 /** Display strings shared by the frequency control, the dimension table and the charts. */
-import { C } from '../rf/constants';
+import { C } from '../rf/units/constants';
 
 const MINUS = '\u2212';
 const THIN_SPACE = '\u2009';

@@ -1,5 +1,5 @@
-import { parseDesignQuery } from '$lib/server/design-query';
-import { searchDesigns } from '$lib/server/search';
+import { parseDesignQuery } from '$lib/server/designs/design-query';
+import { searchDesigns } from '$lib/server/designs/search';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ url }) => {

@@ -2,9 +2,9 @@ import { fail, redirect } from '@sveltejs/kit';
 import { superValidate, message } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { resetRequestSchema } from '$lib/schemas/auth';
-import { findUserByEmail, issueEmailToken } from '$lib/server/accounts';
-import { sendResetMail } from '$lib/server/account-mail';
-import { isLimited } from '$lib/server/rate-limit';
+import { findUserByEmail, issueEmailToken } from '$lib/server/accounts/accounts';
+import { sendResetMail } from '$lib/server/accounts/account-mail';
+import { isLimited } from '$lib/server/http/rate-limit';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async () => ({ form: await superValidate(zod4(resetRequestSchema)) });

@@ -3,10 +3,10 @@ import { superValidate, message } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { dev } from '$app/environment';
 import { signInSchema } from '$lib/schemas/auth';
-import { checkCredentials } from '$lib/server/accounts';
-import { createSession, invalidateSession, setSessionCookie } from '$lib/server/auth';
-import { isLimited } from '$lib/server/rate-limit';
-import { safeNext } from '$lib/server/safe-next';
+import { checkCredentials } from '$lib/server/accounts/accounts';
+import { createSession, invalidateSession, setSessionCookie } from '$lib/server/accounts/auth';
+import { isLimited } from '$lib/server/http/rate-limit';
+import { safeNext } from '$lib/server/http/safe-next';
 import type { Actions, PageServerLoad } from './$types';
 
 const GENERIC_SIGNIN_ERROR = 'That e-mail and password do not match an account.';

@@ -1,5 +1,5 @@
 import { redirect } from '@sveltejs/kit';
-import { clearSessionCookie, invalidateSession } from '$lib/server/auth';
+import { clearSessionCookie, invalidateSession } from '$lib/server/accounts/auth';
 import type { Actions, PageServerLoad } from './$types';
 
 // Signing out changes state, so it is a POST; a GET only lands back on the home page.

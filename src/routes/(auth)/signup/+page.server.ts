@@ -2,10 +2,10 @@ import { fail, redirect } from '@sveltejs/kit';
 import { superValidate, setError, message } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { signUpSchema } from '$lib/schemas/auth';
-import { createAccount, issueEmailToken } from '$lib/server/accounts';
-import { sendAlreadyRegisteredMail, sendVerificationMail } from '$lib/server/account-mail';
-import { passwordProblem } from '$lib/server/password';
-import { isLimited } from '$lib/server/rate-limit';
+import { createAccount, issueEmailToken } from '$lib/server/accounts/accounts';
+import { sendAlreadyRegisteredMail, sendVerificationMail } from '$lib/server/accounts/account-mail';
+import { passwordProblem } from '$lib/server/accounts/password';
+import { isLimited } from '$lib/server/http/rate-limit';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ locals }) => {

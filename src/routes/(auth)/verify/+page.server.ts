@@ -1,5 +1,5 @@
 import { error, fail, redirect } from '@sveltejs/kit';
-import { peekEmailToken, verifyEmail, TOKEN_MESSAGES } from '$lib/server/accounts';
+import { peekEmailToken, verifyEmail, TOKEN_MESSAGES } from '$lib/server/accounts/accounts';
 import type { Actions, PageServerLoad } from './$types';
 
 // The link only shows a button: GET never changes state, and mail scanners that prefetch links

@@ -2,12 +2,12 @@ import { fail } from '@sveltejs/kit';
 import { eq } from 'drizzle-orm';
 import { db } from '$lib/server/db';
 import { users } from '$lib/server/db/schema';
-import { issueEmailToken } from '$lib/server/accounts';
-import { sendVerificationMail } from '$lib/server/account-mail';
-import { requireUser } from '$lib/server/guards';
-import { isLimited } from '$lib/server/rate-limit';
+import { issueEmailToken } from '$lib/server/accounts/accounts';
+import { sendVerificationMail } from '$lib/server/accounts/account-mail';
+import { requireUser } from '$lib/server/http/guards';
+import { isLimited } from '$lib/server/http/rate-limit';
 import { FAMILY_VALUES, type Family } from '$lib/schemas/design';
-import { notificationSettings, setNotificationSettings } from '$lib/server/notify';
+import { notificationSettings, setNotificationSettings } from '$lib/server/mail/notify';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = () => {

@@ -2,8 +2,8 @@ import { fail } from '@sveltejs/kit';
 import { superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { roleChangeSchema } from '$lib/schemas/auth';
-import { requireRole } from '$lib/server/guards';
-import { listUsers, setRole } from '$lib/server/users';
+import { requireRole } from '$lib/server/http/guards';
+import { listUsers, setRole } from '$lib/server/accounts/users';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ url }) => {

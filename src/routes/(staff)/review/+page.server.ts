@@ -1,7 +1,7 @@
 import { FAMILY_VALUES } from '$lib/schemas/design';
-import { BANDS, bandById } from '$lib/rf/bands';
-import { requireRole } from '$lib/server/guards';
-import { listQueue } from '$lib/server/reviews';
+import { BANDS, bandById } from '$lib/rf/catalogues/bands';
+import { requireRole } from '$lib/server/http/guards';
+import { listQueue } from '$lib/server/reviews/reviews';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ url }) => {

@@ -1,8 +1,8 @@
 import { error } from '@sveltejs/kit';
-import { getAttachment } from '$lib/server/attachments';
-import { blobStore } from '$lib/server/files';
-import { getMeasurement } from '$lib/server/measurements';
-import { canRead, getRevisionById } from '$lib/server/revisions';
+import { getAttachment } from '$lib/server/measurements/attachments';
+import { blobStore } from '$lib/server/storage/from-env';
+import { getMeasurement } from '$lib/server/measurements/measurements';
+import { canRead, getRevisionById } from '$lib/server/designs/revisions';
 import type { RequestHandler } from './$types';
 
 const VARIANTS = ['display', 'thumb', 'original'] as const;

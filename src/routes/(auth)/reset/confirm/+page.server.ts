@@ -2,10 +2,10 @@ import { error, fail, redirect } from '@sveltejs/kit';
 import { superValidate, setError, message } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { resetConfirmSchema } from '$lib/schemas/auth';
-import { peekEmailToken, resetPassword, TOKEN_MESSAGES } from '$lib/server/accounts';
-import { clearSessionCookie } from '$lib/server/auth';
-import { passwordProblem } from '$lib/server/password';
-import { isLimited } from '$lib/server/rate-limit';
+import { peekEmailToken, resetPassword, TOKEN_MESSAGES } from '$lib/server/accounts/accounts';
+import { clearSessionCookie } from '$lib/server/accounts/auth';
+import { passwordProblem } from '$lib/server/accounts/password';
+import { isLimited } from '$lib/server/http/rate-limit';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ url }) => {

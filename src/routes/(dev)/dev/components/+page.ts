@@ -1,6 +1,6 @@
-import { bandById } from '$lib/rf/bands';
-import { parseFrequencyParam } from '$lib/rf/frequency-input';
-import type { Units } from '$lib/rf/length-format';
+import { bandById } from '$lib/rf/catalogues/bands';
+import { parseFrequencyParam } from '$lib/rf/units/frequency';
+import type { Units } from '$lib/rf/units/length';
 import type { PageLoad } from './$types';
 
 export const prerender = false;

@@ -1,8 +1,8 @@
 /** Sample values for the component sheet. Invented demo data, not a design and never a check value. */
-import { C } from '$lib/rf/constants';
-import { formatLength, lengthIn, type Units } from '$lib/rf/length-format';
-import { sensitivityFor } from '$lib/rf/sensitivity';
-import type { RowResult, TableResult } from '$lib/rf/table-types';
+import { C } from '$lib/rf/units/constants';
+import { formatLength, lengthIn, type Units } from '$lib/rf/units/length';
+import { sensitivityFor } from '$lib/rf/tables/sensitivity';
+import type { RowResult, TableResult } from '$lib/rf/tables/types';
 
 export interface SampleSweep {
 	f_hz: number[];

@@ -1,7 +1,7 @@
 import { error } from '@sveltejs/kit';
 import { env } from '$env/dynamic/private';
 import { listOutbox } from '$lib/server/mail/outbox';
-import { outboxDir, usesOutbox } from '$lib/server/mailer';
+import { outboxDir, usesOutbox } from '$lib/server/mail/send';
 import type { PageServerLoad } from './$types';
 
 /** Local mail viewer: only without SMTP and outside production (NODE_ENV=production hides it). */

@@ -2,12 +2,12 @@ import { fail, redirect } from '@sveltejs/kit';
 import { superValidate, setError, message } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { newDesignSchema } from '$lib/schemas/new-design';
-import { parseFrequency } from '$lib/rf/frequency-input';
+import { parseFrequency } from '$lib/rf/units/frequency';
 import { parseDesignFile, MAX_DESIGN_FILE_BYTES } from '$lib/design-file';
-import { requireVerifiedMember } from '$lib/server/guards';
-import { createDesign, starterContent } from '$lib/server/designs';
-import { DomainError } from '$lib/server/errors';
-import { isLimited } from '$lib/server/rate-limit';
+import { requireVerifiedMember } from '$lib/server/http/guards';
+import { createDesign, starterContent } from '$lib/server/designs/designs';
+import { DomainError } from '$lib/server/http/errors';
+import { isLimited } from '$lib/server/http/rate-limit';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async () => {

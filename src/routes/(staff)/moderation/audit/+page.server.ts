@@ -1,5 +1,5 @@
-import { listAudit } from '$lib/server/audit';
-import { requireRole } from '$lib/server/guards';
+import { listAudit } from '$lib/server/moderation/audit';
+import { requireRole } from '$lib/server/http/guards';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ url }) => {

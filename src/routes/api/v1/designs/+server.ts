@@ -1,8 +1,8 @@
 import { json } from '@sveltejs/kit';
-import { apiError } from '$lib/server/api';
-import { parseDesignQuery } from '$lib/server/design-query';
-import { isLimited } from '$lib/server/rate-limit';
-import { searchDesigns } from '$lib/server/search';
+import { apiError } from '$lib/server/http/api';
+import { parseDesignQuery } from '$lib/server/designs/design-query';
+import { isLimited } from '$lib/server/http/rate-limit';
+import { searchDesigns } from '$lib/server/designs/search';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = async (event) => {

@@ -1,6 +1,6 @@
-import { apiError, handleApi, jsonText, readJson } from '$lib/server/api';
-import { evaluateBody } from '$lib/server/evaluate';
-import { isLimited } from '$lib/server/rate-limit';
+import { apiError, handleApi, jsonText, readJson } from '$lib/server/http/api';
+import { evaluateBody } from '$lib/server/designs/evaluate';
+import { isLimited } from '$lib/server/http/rate-limit';
 import type { RequestHandler } from './$types';
 
 export const POST: RequestHandler = (event) =>

@@ -1,8 +1,8 @@
 import { error } from '@sveltejs/kit';
-import { getDesignBySlug } from '$lib/server/designs';
-import { compareRevisions, resolveCompare } from '$lib/server/compare';
-import { DomainError } from '$lib/server/errors';
-import { formatFrequency } from '$lib/rf/frequency-input';
+import { getDesignBySlug } from '$lib/server/designs/designs';
+import { compareRevisions, resolveCompare } from '$lib/server/reviews/compare';
+import { DomainError } from '$lib/server/http/errors';
+import { formatFrequency } from '$lib/rf/units/frequency';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ params, url, locals }) => {

@@ -1,7 +1,7 @@
 import { error, json } from '@sveltejs/kit';
 import { env } from '$env/dynamic/private';
-import { apiError, handleApi, readJson } from '$lib/server/api';
-import { isLimited } from '$lib/server/rate-limit';
+import { apiError, handleApi, readJson } from '$lib/server/http/api';
+import { isLimited } from '$lib/server/http/rate-limit';
 import type { RequestHandler } from './$types';
 
 /**

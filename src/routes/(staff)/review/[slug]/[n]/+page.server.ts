@@ -1,15 +1,15 @@
 import { error, fail, redirect } from '@sveltejs/kit';
-import { requireUser } from '$lib/server/guards';
-import { compareRevisions, readableRevisions } from '$lib/server/compare';
-import { addComment, listThreads, noteLineCount, setResolved } from '$lib/server/comments';
-import { confirmReject, decisionFor, isModerator, isReviewer, reviewsFor, submitReview } from '$lib/server/reviews';
-import { DomainError } from '$lib/server/errors';
-import { isLimited } from '$lib/server/rate-limit';
-import { getDesignBySlug, ownerName } from '$lib/server/designs';
-import { claimBand, computeRevision } from '$lib/server/dimensions';
-import { contentOf } from '$lib/server/designs';
+import { requireUser } from '$lib/server/http/guards';
+import { compareRevisions, readableRevisions } from '$lib/server/reviews/compare';
+import { addComment, listThreads, noteLineCount, setResolved } from '$lib/server/reviews/comments';
+import { confirmReject, decisionFor, isModerator, isReviewer, reviewsFor, submitReview } from '$lib/server/reviews/reviews';
+import { DomainError } from '$lib/server/http/errors';
+import { isLimited } from '$lib/server/http/rate-limit';
+import { getDesignBySlug, ownerName } from '$lib/server/designs/designs';
+import { claimBand, computeRevision } from '$lib/server/designs/dimensions';
+import { contentOf } from '$lib/server/designs/designs';
 import { anchorFromForm, commentFormSchema } from '$lib/schemas/review';
-import { canRead, getRevision } from '$lib/server/revisions';
+import { canRead, getRevision } from '$lib/server/designs/revisions';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 /**

@@ -1,11 +1,11 @@
 import { json } from '@sveltejs/kit';
 import { eq } from 'drizzle-orm';
-import { apiError } from '$lib/server/api';
+import { apiError } from '$lib/server/http/api';
 import { db } from '$lib/server/db';
 import { users } from '$lib/server/db/schema';
-import { getMeasurement, measurementSeries } from '$lib/server/measurements';
-import { canRead, getRevisionById } from '$lib/server/revisions';
-import { isLimited } from '$lib/server/rate-limit';
+import { getMeasurement, measurementSeries } from '$lib/server/measurements/measurements';
+import { canRead, getRevisionById } from '$lib/server/designs/revisions';
+import { isLimited } from '$lib/server/http/rate-limit';
 import type { RequestHandler } from './$types';
 
 /** One sweep's chart data: metrics, claim check and the display series (≤ 2000 points). */

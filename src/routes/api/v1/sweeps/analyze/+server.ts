@@ -1,9 +1,9 @@
 import { json } from '@sveltejs/kit';
-import { parseAnalyzeQuery } from '$lib/rf/sweep';
-import { apiError } from '$lib/server/api';
-import { analyzeBytes, MAX_SWEEP_BYTES } from '$lib/server/measurements';
-import { isLimited } from '$lib/server/rate-limit';
-import { readBodyLimited, UploadError } from '$lib/server/uploads';
+import { parseAnalyzeQuery } from '$lib/rf/sweeps/sweep';
+import { apiError } from '$lib/server/http/api';
+import { analyzeBytes, MAX_SWEEP_BYTES } from '$lib/server/measurements/measurements';
+import { isLimited } from '$lib/server/http/rate-limit';
+import { readBodyLimited, UploadError } from '$lib/server/measurements/uploads';
 import type { RequestHandler } from './$types';
 
 /**

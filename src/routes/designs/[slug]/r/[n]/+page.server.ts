@@ -1,8 +1,8 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { loadDesignRevision, revisionPageData } from '$lib/server/revision-view';
-import { requireVerifiedMember } from '$lib/server/guards';
-import { startRevision, submitRevision, withdrawRevision } from '$lib/server/revisions';
-import { DomainError } from '$lib/server/errors';
+import { loadDesignRevision, revisionPageData } from '$lib/server/designs/revision-view';
+import { requireVerifiedMember } from '$lib/server/http/guards';
+import { startRevision, submitRevision, withdrawRevision } from '$lib/server/designs/revisions';
+import { DomainError } from '$lib/server/http/errors';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ params, url, locals }) => {

@@ -1,8 +1,8 @@
 import { json } from '@sveltejs/kit';
-import { apiError, handleApi } from '$lib/server/api';
-import { getDesignBySlug } from '$lib/server/designs';
-import { compareRevisions, resolveCompare } from '$lib/server/compare';
-import { isLimited } from '$lib/server/rate-limit';
+import { apiError, handleApi } from '$lib/server/http/api';
+import { getDesignBySlug } from '$lib/server/designs/designs';
+import { compareRevisions, resolveCompare } from '$lib/server/reviews/compare';
+import { isLimited } from '$lib/server/http/rate-limit';
 import type { RequestHandler } from './$types';
 
 /** Diff of two revisions of one design: ?from=&to= (revision numbers), ?f= (values at, default: to's design frequency). */

@@ -1,7 +1,7 @@
-import { computeRevision } from '$lib/server/dimensions';
-import { buildSheetPdf } from '$lib/server/exports';
-import { loadDesignRevision, viewState } from '$lib/server/revision-view';
-import { enforceLimit } from '$lib/server/rate-limit';
+import { computeRevision } from '$lib/server/designs/dimensions';
+import { buildSheetPdf } from '$lib/server/designs/exports';
+import { loadDesignRevision, viewState } from '$lib/server/designs/revision-view';
+import { enforceLimit } from '$lib/server/http/rate-limit';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = async (event) => {

@@ -1,5 +1,5 @@
-import { designFileOf } from '$lib/server/exports';
-import { loadDesignRevision } from '$lib/server/revision-view';
+import { designFileOf } from '$lib/server/designs/exports';
+import { loadDesignRevision } from '$lib/server/designs/revision-view';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = ({ params, locals }) => {

@@ -1,6 +1,6 @@
-import { computeRevision } from '$lib/server/dimensions';
-import { tableCsv } from '$lib/server/exports';
-import { loadDesignRevision, viewState } from '$lib/server/revision-view';
+import { computeRevision } from '$lib/server/designs/dimensions';
+import { tableCsv } from '$lib/server/designs/exports';
+import { loadDesignRevision, viewState } from '$lib/server/designs/revision-view';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = ({ params, url, locals }) => {

@@ -1,8 +1,8 @@
 import { json } from '@sveltejs/kit';
-import { apiError } from '$lib/server/api';
-import { getDesignBySlug, ownerName } from '$lib/server/designs';
-import { canRead, getRevision } from '$lib/server/revisions';
-import { revisionJson } from '$lib/server/exports';
+import { apiError } from '$lib/server/http/api';
+import { getDesignBySlug, ownerName } from '$lib/server/designs/designs';
+import { canRead, getRevision } from '$lib/server/designs/revisions';
+import { revisionJson } from '$lib/server/designs/exports';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = ({ params, locals }) => {

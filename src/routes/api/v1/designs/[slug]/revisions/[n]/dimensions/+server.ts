@@ -1,9 +1,9 @@
-import { parseFrequency } from '$lib/rf/frequency-input';
-import { apiError, jsonText } from '$lib/server/api';
-import { revisionTableJson } from '$lib/server/dimensions';
-import { canRead, getRevisionHead } from '$lib/server/revisions';
-import { isLimited } from '$lib/server/rate-limit';
-import { bandFor, parseUnits } from '$lib/server/revision-view';
+import { parseFrequency } from '$lib/rf/units/frequency';
+import { apiError, jsonText } from '$lib/server/http/api';
+import { revisionTableJson } from '$lib/server/designs/dimensions';
+import { canRead, getRevisionHead } from '$lib/server/designs/revisions';
+import { isLimited } from '$lib/server/http/rate-limit';
+import { bandFor, parseUnits } from '$lib/server/designs/revision-view';
 import type { RequestHandler } from './$types';
 
 /** The dimension table of one revision at ?f= (Hz, or text such as "5.8 GHz"), in ?units=. */

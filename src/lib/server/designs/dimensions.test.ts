@@ -1,0 +1,57 @@
+import { describe, expect, it } from 'vitest';
+import { createDesign, starterContent } from './designs';
+import { getRevisionById, saveDraft, submitRevision } from './revisions';
+import { computeRevision, revisionTableJson } from './dimensions';
+import { member } from '../../testing/server-setup';
+
+const C = 299_792_458; // m/s, exact (SI definition of the metre)
+
+describe('revisionTableJson', () => {
+	it('answers for a submitted revision as computeRevision does, per frequency, units and band', async () => {
+		const author = await member('dims-json@example.org');
+		const { revisionId } = createDesign(
+			author,
+			{ title: 'Kept answers', family: 'biquad', polarization: 'linear', summary: '' },
+			starterContent(2.45e9)
+		);
+		submitRevision(author, revisionId);
+		const r = getRevisionById(revisionId)!;
+		const views = [
+			{ frequencyHz: 5.8e9 },
+			{ frequencyHz: 5.8e9 },
+			{ frequencyHz: 2.45e9, units: 'in' as const },
+			{ frequencyHz: 2.45e9, bandHz: [2.4e9, 2.5e9] as const }
+		];
+		for (const v of views)
+			expect(revisionTableJson(r, v)).toBe(JSON.stringify(computeRevision(r, v)));
+		// [calc] λ/4 at 5.8 GHz = 299792458 / 5.8e9 / 4 = 12.922 mm
+		const at58 = JSON.parse(revisionTableJson(r, { frequencyHz: 5.8e9 }));
+		expect(at58.rows[0].value_mm).toBeCloseTo((C / 5.8e9 / 4) * 1000, 6);
+		const at245 = JSON.parse(revisionTableJson(r, { frequencyHz: 2.45e9 }));
+		expect(at245.rows[0].value_mm).toBeCloseTo((C / 2.45e9 / 4) * 1000, 6);
+		const inches = JSON.parse(revisionTableJson(r, { frequencyHz: 2.45e9, units: 'in' }));
+		expect(inches.rows[0].display).toMatch(/in$/);
+	});
+
+	it('computes a draft every time, so a saved change shows at once', async () => {
+		const author = await member('dims-draft@example.org');
+		const content = starterContent(2.45e9);
+		const { revisionId } = createDesign(
+			author,
+			{ title: 'Draft answers', family: 'biquad', polarization: 'linear', summary: '' },
+			content
+		);
+		const before = JSON.parse(
+			revisionTableJson(getRevisionById(revisionId)!, { frequencyHz: 2.45e9 })
+		);
+		saveDraft(author, revisionId, {
+			...content,
+			rows: [{ ...content.rows[0], formula: 'lambda / 2' }]
+		});
+		const after = JSON.parse(
+			revisionTableJson(getRevisionById(revisionId)!, { frequencyHz: 2.45e9 })
+		);
+		// [calc] λ/2 = 2 × λ/4
+		expect(after.rows[0].value_mm).toBeCloseTo(2 * before.rows[0].value_mm, 9);
+	});
+});

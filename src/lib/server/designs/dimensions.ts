@@ -1,0 +1,73 @@
+import { compileTable, evaluateTable, TableInputError, type CompiledTable, type EvaluateOptions, type TableResult } from '$lib/rf/tables/table';
+import type { RevisionContent } from '$lib/schemas/design';
+import { DomainError } from '../http/errors';
+import { toTableDefinition, unknownCatalogues } from '$lib/rf/tables/revision-table';
+import type { Revision } from '../db/schema';
+import { contentOf, getRevisionById } from './designs';
+import { Doorkeeper, Lru } from '../http/lru';
+
+interface Prepared {
+	table: CompiledTable;
+	/** Rows naming a catalogue this version does not know (kept from older files), with a warning. */
+	unknown: { key: string; catalogue: string }[];
+}
+
+// Submitted revisions never change, so their compiled tables are kept; drafts are keyed by save time.
+const compiled = new Lru<string, Prepared>(500);
+
+/** What the cache needs of a revision; the content is read only on a miss (see getRevisionHead). */
+type RevisionKey = Pick<Revision, 'id' | 'state' | 'updatedAt'> & Partial<Revision>;
+
+function compiledFor(r: RevisionKey): Prepared {
+	const key = r.state === 'draft' ? `${r.id}@${r.updatedAt.getTime()}` : r.id;
+	let t = compiled.get(key);
+	if (!t) {
+		const full = r.content ? (r as Revision) : getRevisionById(r.id);
+		if (!full) throw new DomainError(404, 'No such design revision.');
+		const content = contentOf(full);
+		t = { table: compileTable(toTableDefinition(content)), unknown: unknownCatalogues(content) };
+		compiled.set(key, t);
+	}
+	return t;
+}
+
+export function computeRevision(r: RevisionKey, opts: EvaluateOptions): TableResult {
+	const { table, unknown } = compiledFor(r);
+	const result = evaluateTable(table, opts);
+	for (const { key, catalogue } of unknown) {
+		result.rows.find((row) => row.key === key)?.warnings.push(`Unknown stock catalogue "${catalogue}"; not snapped.`);
+	}
+	return result;
+}
+
+// The API's answer for one view of a submitted revision never changes either, so its JSON text is
+// kept (about 8 kB for 40 rows) once that view is asked for a second time. Drafts are computed each time.
+const answers = new Lru<string, string>(1000);
+const asked = new Doorkeeper(4096);
+
+/** computeRevision as JSON text, as the dimensions API sends it. */
+export function revisionTableJson(r: RevisionKey, opts: EvaluateOptions): string {
+	if (r.state === 'draft') return JSON.stringify(computeRevision(r, opts));
+	const key = `${r.id} ${opts.frequencyHz} ${opts.units ?? 'mm'} ${opts.bandHz?.join(' ') ?? ''}`;
+	let text = answers.get(key);
+	if (text === undefined) {
+		text = JSON.stringify(computeRevision(r, opts));
+		if (asked.seen(key)) answers.set(key, text);
+	}
+	return text;
+}
+
+/** Band edges for sensitivity tolerances: the revision's claimed band. */
+export function claimBand(r: Pick<Revision, 'claimLoHz' | 'claimHiHz'>): [number, number] | undefined {
+	return r.claimLoHz && r.claimHiHz ? [r.claimLoHz, r.claimHiHz] : undefined;
+}
+
+/** Keys and sizes the engine refuses (unit names such as "mm", function names) are a 422 on that field. */
+export function assertCompilable(content: RevisionContent): void {
+	try {
+		compileTable(toTableDefinition(content));
+	} catch (e) {
+		if (e instanceof TableInputError) throw new DomainError(422, `${e.field}: ${e.message}`, e.field);
+		throw e;
+	}
+}

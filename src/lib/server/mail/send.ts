@@ -1,0 +1,84 @@
+import { env } from '$env/dynamic/private';
+import { and, asc, eq, isNull, lte } from 'drizzle-orm';
+import { join } from 'node:path';
+import { building } from '$app/environment';
+import { db } from '../db';
+import { mailQueue } from '../db/schema';
+import { createMailer } from '.';
+import { dataDir } from '../http/config';
+
+export const outboxDir = () => join(dataDir(), 'outbox');
+export const usesOutbox = () => !env.SMTP_URL;
+
+let mailer: ReturnType<typeof createMailer> | null = null;
+function getMailer() {
+	mailer ??= createMailer({
+		smtpUrl: env.SMTP_URL || undefined,
+		from: env.MAIL_FROM || 'no-reply@bandwright.invalid',
+		outboxDir: outboxDir()
+	});
+	return mailer;
+}
+
+/** Account mail (verification, reset) is sent at once: the person is waiting for it. */
+export async function sendNow(to: string, subject: string, text: string): Promise<void> {
+	await getMailer().send({ to, subject, text });
+}
+
+const MAX_ATTEMPTS = 5;
+
+/** Notifications go through the queue table, written in the caller's transaction, sent after commit. */
+export function queueMail(
+	msg: { to: string; subject: string; text: string },
+	tx: Pick<typeof db, 'insert'> = db
+): void {
+	tx.insert(mailQueue)
+		.values({ toAddress: msg.to, subject: msg.subject, body: msg.text, nextAttemptAt: new Date() })
+		.run();
+	setTimeout(() => void deliverQueued(), 0);
+}
+
+let delivering = false;
+export async function deliverQueued(now = Date.now()): Promise<number> {
+	if (delivering) return 0;
+	delivering = true;
+	let sent = 0;
+	try {
+		const due = db
+			.select()
+			.from(mailQueue)
+			.where(and(isNull(mailQueue.sentAt), lte(mailQueue.nextAttemptAt, new Date(now))))
+			.orderBy(asc(mailQueue.id))
+			.limit(50)
+			.all()
+			.filter((m) => m.attempts < MAX_ATTEMPTS);
+		for (const m of due) {
+			try {
+				await getMailer().send({ to: m.toAddress, subject: m.subject, text: m.body });
+				db.update(mailQueue).set({ sentAt: new Date(), attempts: m.attempts + 1 }).where(eq(mailQueue.id, m.id)).run();
+				sent++;
+			} catch (e) {
+				const attempts = m.attempts + 1;
+				console.error(`mail ${m.id} to ${m.toAddress} failed (attempt ${attempts})`, e);
+				db.update(mailQueue)
+					.set({
+						attempts,
+						lastError: String(e).slice(0, 500),
+						nextAttemptAt: new Date(Date.now() + 30_000 * 2 ** attempts)
+					})
+					.where(eq(mailQueue.id, m.id))
+					.run();
+			}
+		}
+	} finally {
+		delivering = false;
+	}
+	return sent;
+}
+
+let worker: ReturnType<typeof setInterval> | null = null;
+export function startMailWorker() {
+	if (worker || building) return;
+	worker = setInterval(() => void deliverQueued(), 15_000);
+	worker.unref();
+}

@@ -1,0 +1,71 @@
+// The one shape of an upload action: guard, rate limit, read the multipart body, store, redirect.
+import { fail, redirect, type RequestEvent } from '@sveltejs/kit';
+import { requireVerifiedMember } from '../http/guards';
+import { isLimited } from '../http/rate-limit';
+import { loadDesignRevision } from '../designs/revision-view';
+import { DomainError } from '../http/errors';
+import { formFields, formFile, UploadError } from './uploads';
+import type { SessionUser } from '../accounts/auth';
+import type { Revision } from '../db/schema';
+
+/** Text fields a failed upload sends back to refill the form (never the file). */
+const KEEP =
+	/^(instrument|reference_plane|measured_on|notes|format|z0|column|quantity|freq_unit|target_frequency|deviations|materials|kind|caption)$/;
+
+export async function uploadAction(
+	event: RequestEvent<{ slug: string; n: string }>,
+	opts: { max: number; what: string; anchor: string },
+	store: (
+		user: SessionUser,
+		r: Revision,
+		input: { fields: Record<string, string>; file: { bytes: Uint8Array; name: string } }
+	) => Promise<{ id: string }>
+) {
+	const user = requireVerifiedMember();
+	const { design, revision } = loadDesignRevision(
+		event.params.slug,
+		event.params.n,
+		event.locals.user
+	);
+	if (await isLimited('upload', event)) {
+		return fail(429, {
+			message: 'Too many uploads at once; wait a minute and try again.',
+			field: null,
+			line: null,
+			column: null,
+			values: {}
+		});
+	}
+	let form: FormData;
+	try {
+		form = await event.request.formData();
+	} catch {
+		return fail(400, {
+			message: 'The upload could not be read; send the form again.',
+			field: null,
+			line: null,
+			column: null,
+			values: {}
+		});
+	}
+	const fields = formFields(form);
+	const values = Object.fromEntries(Object.entries(fields).filter(([k]) => KEEP.test(k)));
+	let id: string;
+	try {
+		const file = await formFile(form, 'file', opts.max, opts.what);
+		id = (await store(user, revision!, { fields, file })).id;
+	} catch (e) {
+		if (e instanceof DomainError) {
+			const where = e instanceof UploadError ? e : null;
+			return fail(e.status, {
+				message: e.message,
+				field: e.field ?? null,
+				line: where?.line ?? null,
+				column: where?.column ?? null,
+				values
+			});
+		}
+		throw e;
+	}
+	redirect(303, `/designs/${design.slug}/r/${revision!.number}?added=${id}#${opts.anchor}`);
+}

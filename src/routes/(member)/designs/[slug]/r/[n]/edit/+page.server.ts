@@ -1,0 +1,56 @@
+import { error, fail, redirect } from '@sveltejs/kit';
+import { contentToEditor, editorToContent, readEditorForm } from '$lib/editor-state';
+import { CATALOGUE_IDS } from '$lib/rf/catalogues/stock';
+import { contentOf } from '$lib/server/designs/designs';
+import { DomainError } from '$lib/server/http/errors';
+import { requireVerifiedMember } from '$lib/server/http/guards';
+import { isLimited } from '$lib/server/http/rate-limit';
+import { loadDesignRevision } from '$lib/server/designs/revision-view';
+import { saveDraft, submitRevision } from '$lib/server/designs/revisions';
+import type { Actions, PageServerLoad } from './$types';
+
+function editable(slug: string, n: string) {
+	const user = requireVerifiedMember();
+	const { design, revision } = loadDesignRevision(slug, n, user);
+	const r = revision!;
+	if (r.authorId !== user.id) error(403, 'Only the author can edit this draft.');
+	if (r.state !== 'draft') error(409, `r${r.number} is ${r.state}; its content is frozen. Start a new revision to change it.`);
+	return { user, design, r };
+}
+
+export const load: PageServerLoad = ({ params }) => {
+	const { design, r } = editable(params.slug, params.n);
+	return {
+		design: { slug: design.slug, title: design.title },
+		revision: { number: r.number, updatedAt: r.updatedAt.toISOString() },
+		editor: contentToEditor(contentOf(r)),
+		catalogues: [...CATALOGUE_IDS]
+	};
+};
+
+async function save(event: Parameters<Actions[string]>[0], andSubmit: boolean) {
+	const { user, design, r } = editable(event.params.slug!, event.params.n!);
+	if (await isLimited('write', event)) return fail(429, { message: 'Too many saves; wait a minute.', errors: {}, editor: null });
+	const editor = readEditorForm(await event.request.formData());
+	const parsed = editorToContent(editor);
+	if (!parsed.ok) {
+		return fail(400, { message: 'Nothing was saved: fix the fields marked below.', errors: parsed.errors, editor });
+	}
+	try {
+		saveDraft(user, r.id, parsed.content);
+		if (andSubmit) submitRevision(user, r.id);
+	} catch (e) {
+		if (e instanceof DomainError) {
+			const saved = andSubmit && e.status === 422 ? ' The draft was saved.' : '';
+			return fail(e.status, { message: e.message + saved, errors: e.field ? { [e.field]: e.message } : {}, editor });
+		}
+		throw e;
+	}
+	if (andSubmit) redirect(303, `/designs/${design.slug}/r/${r.number}?submitted=1`);
+	return { saved: true, message: 'Draft saved.', errors: {}, editor: null };
+}
+
+export const actions: Actions = {
+	save: (event) => save(event, false),
+	submit: (event) => save(event, true)
+};
