@@ -1,5 +1,6 @@
 import { pathToFileURL } from 'node:url';
-import { analyzeSweep, parseSweep } from '../src/lib/rf/sweeps/sweep';
+import { parseSweep } from '../src/lib/rf/sweeps/sweep';
+import { analyzeSweep } from '../src/lib/rf/sweeps/claim-check';
 import { syntheticResonatorSweep, toTouchstone } from '../src/lib/rf/sweeps/synthetic';
 
 const RUNS = 9;

@@ -1,7 +1,7 @@
 /** Form fields of a measurement or build report upload, and of a photo upload (shared by page and server). */
 import { z } from 'zod';
 import { parseFrequency } from '$lib/rf/units/frequency';
-import { CSV_QUANTITIES, FREQUENCY_UNITS } from '$lib/rf/sweeps/sweep';
+import { CSV_QUANTITIES, FREQUENCY_UNITS } from '$lib/rf/sweeps/types';
 
 export const INSTRUMENTS = [
 	{ value: 'vna', label: 'Vector network analyser' },

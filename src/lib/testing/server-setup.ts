@@ -8,9 +8,11 @@ import { toSessionUser, type SessionUser } from '../server/accounts/auth';
 import { db } from '../server/db';
 import { attachments, measurements, users, type Revision } from '../server/db/schema';
 import { createDesign, starterContent } from '../server/designs/designs';
-import { getRevisionById, submitRevision } from '../server/designs/revisions';
+import { submitRevision } from '../server/designs/revisions';
+import { getRevisionById } from '../server/designs/lookups';
 import { useBlobStore } from '../server/storage/from-env';
-import { createStore, type BlobStore } from '../server/storage';
+import { createStore } from '../server/storage';
+import type { BlobStore } from '../server/storage/blob';
 
 export async function member(email: string, verified = true): Promise<SessionUser> {
 	const a = (await createAccount({

@@ -20,26 +20,7 @@ import {
 import { CONSTANTS, FUNCTIONS, FormulaRuntimeError } from './functions';
 import { COMPARE, REJECTED, isUnitOnly, type AnyNode } from './nodes';
 import { isMathName, unitLiteral } from './sandbox';
-
-export type Run = (env: Float64Array) => number;
-
-export interface Compiled {
-	dims: Dims;
-	run: Run;
-	/** Set when the value is known at compile time. */
-	k?: number;
-}
-
-export interface ScopeEntry {
-	slot: number;
-	dims: Dims;
-}
-
-export interface CompileScope {
-	lookup(name: string): ScopeEntry | undefined;
-	/** A message for a name that exists but may not be used here (a later row, the row itself). */
-	refuse(name: string): string | undefined;
-}
+import type { Compiled, CompileScope, Run } from './types';
 
 /** A compile error with the 1-based column it points at, when known. */
 export class FormulaError extends Error {

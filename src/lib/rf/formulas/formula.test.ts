@@ -1,12 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { C } from '../units/constants';
-import {
-	compileFormula,
-	formulaCacheStats,
-	scanNames,
-	type CompileScope,
-	type ScopeEntry
-} from './formula';
+import { compileFormula, formulaCacheStats, scanNames } from './formula';
+import type { CompileScope, ScopeEntry } from './types';
 import { DIMLESS, FREQUENCY, LENGTH, SPEED, ANGLE, type Dims } from './dims';
 import { referenceEvaluate, referenceUnit } from './sandbox';
 

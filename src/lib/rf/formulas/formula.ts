@@ -9,10 +9,10 @@
  */
 import type { MathNode } from 'mathjs';
 import { MAX_FORMULA_LENGTH, PARSER_WORDS } from '../units/constants';
-import { compileNode, FormulaError, type CompileScope, type Compiled } from './compile';
+import { compileNode, FormulaError } from './compile';
+import type { CompileScope, Compiled } from './types';
 import { parseExpression } from './sandbox';
 
-export { FormulaError, type CompileScope, type Compiled, type ScopeEntry } from './compile';
 
 export interface LocatedError {
 	message: string;

@@ -1,6 +1,6 @@
 /** Node shapes and per-node-kind tables shared by the formula compiler. */
 import type { MathNode } from 'mathjs';
-import type { CompileScope } from './compile';
+import type { CompileScope } from './types';
 import { unitLiteral } from './sandbox';
 
 /** The fields of mathjs nodes the compiler reads (mathjs's own types are a union without them). */

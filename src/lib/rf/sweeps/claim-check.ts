@@ -1,5 +1,5 @@
 import { downsampleMinMax } from './downsample';
-import type { Sweep } from './sweep';
+import type { Sweep } from './types';
 import {
 	findMinimumVswr,
 	fractionalBandwidth,

@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { parseCsvSweep } from './csv';
-import type { ParseSweepOptions, Sweep, SweepParseError } from './sweep';
+import type { ParseSweepOptions, Sweep, SweepParseError } from './types';
 
 const fixture = (name: string) =>
 	readFileSync(new URL(`../../testing/sweeps/${name}`, import.meta.url), 'utf8');

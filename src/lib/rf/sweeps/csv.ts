@@ -1,4 +1,4 @@
-import type { CsvQuantity, FrequencyUnit, ParseSweepOptions, SweepParseResult } from './sweep';
+import type { CsvQuantity, FrequencyUnit, ParseSweepOptions, SweepParseResult } from './types';
 import {
 	FREQUENCY_RANGE,
 	MAX_FREQUENCY_HZ,

@@ -1,7 +1,7 @@
 import Complex from 'complex.js';
 import { describe, expect, it } from 'vitest';
 import { rlcSweep } from '../../testing/sweeps/rlc';
-import type { Sweep } from './sweep';
+import type { Sweep } from './types';
 import {
 	findMinimumVswr,
 	fractionalBandwidth,

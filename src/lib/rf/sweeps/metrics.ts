@@ -1,4 +1,4 @@
-import type { Sweep } from './sweep';
+import type { Sweep } from './types';
 
 /*
  * Reflection relations (Pozar, Microwave Engineering, 4th ed., §2.3):

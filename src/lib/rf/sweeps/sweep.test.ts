@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { analyzeSweep, parseAnalyzeQuery, parseSweep, sniffFormat } from './sweep';
+import { parseAnalyzeQuery, parseSweep, sniffFormat } from './sweep';
+import { analyzeSweep } from './claim-check';
 import { seededRandom, syntheticResonatorSweep, toTouchstone } from './synthetic';
 
 const fixture = (name: string) =>

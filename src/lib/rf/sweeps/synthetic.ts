@@ -1,4 +1,4 @@
-import type { FrequencyUnit, Sweep } from './sweep';
+import type { FrequencyUnit, Sweep } from './types';
 
 /**
  * Synthetic 1-port sweeps from a series RLC resonator, Z = R + jωL + 1/(jωC), with

@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import type { Sweep, SweepParseError } from './sweep';
+import type { Sweep, SweepParseError } from './types';
 import { decimalNumber, MAX_SWEEP_POINTS, parseTouchstone } from './touchstone';
 
 // Rules cited as "TS 1.1" / "TS 2.0": IBIS Open Forum, Touchstone File Format Specification,

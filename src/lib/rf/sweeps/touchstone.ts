@@ -1,4 +1,4 @@
-import type { Sweep, SweepErrorCode, SweepParseError, SweepParseResult } from './sweep';
+import type { Sweep, SweepErrorCode, SweepParseError, SweepParseResult } from './types';
 import { renormalizeSweep } from './metrics';
 
 /**

@@ -5,13 +5,8 @@
  */
 import { isCatalogueId, type CatalogueId } from '../catalogues/stock';
 import { KEY_PATTERN, MAX_PARAMETERS, MAX_ROWS, PARSER_WORDS, SCOPE_NAMES } from '../units/constants';
-import {
-	compileFormula,
-	type CompileScope,
-	type Compiled,
-	type LocatedError,
-	type ScopeEntry
-} from '../formulas/formula';
+import { compileFormula, type LocatedError } from '../formulas/formula';
+import type { CompileScope, Compiled, ScopeEntry } from '../formulas/types';
 import {
 	ANGLE,
 	DIMLESS,

@@ -1,4 +1,4 @@
-import { asc, eq, like, or } from 'drizzle-orm';
+import { asc, eq, like, or, sql } from 'drizzle-orm';
 import { db } from '../db';
 import { users, type Role } from '../db/schema';
 import { audit } from '../moderation/audit';
@@ -37,4 +37,15 @@ export function setRole(actorId: string | null, userId: string, role: Role): Rol
 		);
 		return { ok: true as const, from: target.role, to: role };
 	});
+}
+
+const displayNameById = db
+	.select({ n: users.displayName })
+	.from(users)
+	.where(eq(users.id, sql.placeholder('id')))
+	.prepare();
+
+/** The display name pages show for an account ("unknown" when there is none). */
+export function ownerName(userId: string): string {
+	return displayNameById.get({ id: userId })?.n ?? 'unknown';
 }

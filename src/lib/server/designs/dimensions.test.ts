@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { createDesign, starterContent } from './designs';
-import { getRevisionById, saveDraft, submitRevision } from './revisions';
+import { saveDraft, submitRevision } from './revisions';
+import { getRevisionById } from './lookups';
 import { computeRevision, revisionTableJson } from './dimensions';
 import { member } from '../../testing/server-setup';
 

@@ -3,7 +3,8 @@ import type { RevisionContent } from '$lib/schemas/design';
 import { DomainError } from '../http/errors';
 import { toTableDefinition, unknownCatalogues } from '$lib/rf/tables/revision-table';
 import type { Revision } from '../db/schema';
-import { contentOf, getRevisionById } from './designs';
+import { contentOf } from './content';
+import { getRevisionById } from './lookups';
 import { Doorkeeper, Lru } from '../http/lru';
 
 interface Prepared {

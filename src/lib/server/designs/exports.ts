@@ -1,7 +1,7 @@
 import type { TableResult } from '$lib/rf/tables/table';
 import { writeDesignFile } from '$lib/design-file';
 import type { Design, Revision } from '../db/schema';
-import { contentOf } from './designs';
+import { contentOf } from './content';
 import { renderBuildSheet } from './build-sheet';
 
 export const BUILD_SHEET_CAUTIONS = [

@@ -1,64 +1,17 @@
-import { and, desc, eq, sql } from 'drizzle-orm';
+import { and, desc, eq } from 'drizzle-orm';
 import { db } from '../db';
 import { designs, revisions, type Design, type Revision } from '../db/schema';
 import { revisionContentSchema, type RevisionContent } from '$lib/schemas/design';
 import { newId } from '../accounts/accounts';
 import { DomainError } from '../http/errors';
-import { isSlug } from './slug';
 import { audit } from '../moderation/audit';
-import { contentOf, getRevisionById, revisionColumns, validated } from './designs';
+import { contentOf, revisionColumns, validated } from './content';
+import { getRevisionById } from './lookups';
 import { reindexDesign } from './search';
 import { assertCompilable, computeRevision } from './dimensions';
 import { notifySubmitted } from '../mail/notify';
 import type { SessionUser } from '../accounts/auth';
 
-const revisionByNumber = db
-	.select()
-	.from(revisions)
-	.where(and(eq(revisions.designId, sql.placeholder('designId')), eq(revisions.number, sql.placeholder('number'))))
-	.prepare();
-
-/** Whether a number can name a revision at all (checked before any lookup). */
-const isRevisionNumber = (n: number): boolean => Number.isInteger(n) && n >= 1 && n <= 100_000;
-
-export function getRevision(designId: string, number: number): Revision | null {
-	if (!isRevisionNumber(number)) return null;
-	return revisionByNumber.get({ designId, number }) ?? null;
-}
-
-export { getRevisionById };
-
-const revisionHeadBySlug = db
-	.select({
-		id: revisions.id,
-		number: revisions.number,
-		state: revisions.state,
-		authorId: revisions.authorId,
-		designHz: revisions.designHz,
-		claimLoHz: revisions.claimLoHz,
-		claimHiHz: revisions.claimHiHz,
-		updatedAt: revisions.updatedAt
-	})
-	.from(revisions)
-	.innerJoin(designs, eq(designs.id, revisions.designId))
-	.where(and(eq(designs.slug, sql.placeholder('slug')), eq(revisions.number, sql.placeholder('number'))))
-	.prepare();
-
-/**
- * A revision by its design's address and number, without notes and content: enough to authorize
- * and to find its compiled table, in one lookup.
- */
-export function getRevisionHead(slug: string, number: number) {
-	if (!isSlug(slug) || !isRevisionNumber(number)) return null;
-	return revisionHeadBySlug.get({ slug, number }) ?? null;
-}
-
-/** Drafts are private to their author; every other state is public. */
-export function canRead(user: SessionUser | null, r: Pick<Revision, 'state' | 'authorId'>): boolean {
-	return r.state !== 'draft' || r.authorId === user?.id;
-}
-
-/** The one check every write to a revision's content goes through. */
 function assertEditable(user: SessionUser, r: Revision): void {
 	if (r.authorId !== user.id) throw new DomainError(403, 'Only the author can edit this draft.');
 	if (r.state !== 'draft') {

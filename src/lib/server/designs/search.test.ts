@@ -4,7 +4,7 @@ import { db } from '../db';
 import { designs, users } from '../db/schema';
 import type { SessionUser } from '../accounts/auth';
 import { toSessionUser } from '../accounts/auth';
-import { getDesignBySlug } from './designs';
+import { getDesignBySlug } from './lookups';
 import { startRevision, submitRevision } from './revisions';
 import { submitReview } from '../reviews/reviews';
 import { addMeasurement } from '../measurements/measurements';

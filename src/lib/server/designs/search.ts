@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm';
 import type { Statement } from 'better-sqlite3';
 import { db, sqlite } from '../db';
 import { designs } from '../db/schema';
-import { defaultRevision } from './designs';
+import { defaultRevision } from './lookups';
 import { markdownToPlainText } from '../markdown/markdown';
 import { makeSnippet } from './snippet';
 

@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import { building } from '$app/environment';
 import { db } from '../db';
 import { mailQueue } from '../db/schema';
-import { createMailer } from '.';
+import { createMailer } from './index';
 import { dataDir } from '../http/config';
 
 export const outboxDir = () => join(dataDir(), 'outbox');

@@ -8,7 +8,7 @@ import type { SessionUser } from '../accounts/auth';
 import { newId } from '../accounts/accounts';
 import { audit } from '../moderation/audit';
 import { blobStore } from '../storage/from-env';
-import { newBlobKey } from '../storage';
+import { newBlobKey } from '../storage/blob';
 import { acceptedImage, sniff, type ImageType } from './sniff';
 import { assertUploadAccess, tooLarge, UploadError } from './uploads';
 

@@ -1,13 +1,8 @@
 /** Sweeps on revisions: the author's measurements and other members' build reports. */
 import { asc, eq, getTableColumns, sql } from 'drizzle-orm';
-import {
-	analyzeSweep,
-	parseSweep,
-	type AnalyzeOptions,
-	type AnalyzeQuery,
-	type AnalyzeResult,
-	type Sweep
-} from '$lib/rf/sweeps/sweep';
+import { parseSweep, type AnalyzeQuery } from '$lib/rf/sweeps/sweep';
+import { analyzeSweep, type AnalyzeOptions, type AnalyzeResult } from '$lib/rf/sweeps/claim-check';
+import type { Sweep } from '$lib/rf/sweeps/types';
 import {
 	buildReportSchema,
 	firstIssue,
@@ -20,9 +15,9 @@ import { measurements, users, type Revision } from '../db/schema';
 import type { SessionUser } from '../accounts/auth';
 import { newId } from '../accounts/accounts';
 import { audit } from '../moderation/audit';
-import { contentOf } from '../designs/designs';
+import { contentOf } from '../designs/content';
 import { blobStore } from '../storage/from-env';
-import { newBlobKey } from '../storage';
+import { newBlobKey } from '../storage/blob';
 import { sniff } from './sniff';
 import {
 	assertUploadAccess,

@@ -3,7 +3,7 @@ import { eq, sql } from 'drizzle-orm';
 import { db } from '../db';
 import { measurements, revisions, type Design, type Revision } from '../db/schema';
 import type { SessionUser } from '../accounts/auth';
-import { contentOf } from '../designs/designs';
+import { contentOf } from '../designs/content';
 import { listAttachments } from './attachments';
 import {
 	listMeasurementRows,

@@ -6,8 +6,9 @@ import { diffNotes, sideBySide, type NotesDiffPart, type SideBySideRow } from '$
 import { diffTables, type DiffParameter, type TableDiff, type TableSide } from '$lib/rf/tables/table-diff';
 import type { TableResult } from '$lib/rf/tables/types';
 import { parseFrequency } from '$lib/rf/units/frequency';
-import { contentOf, listRevisions } from '../designs/designs';
-import { canRead, getRevision } from '../designs/revisions';
+import { contentOf } from '../designs/content';
+import { listRevisions } from '../designs/lookups';
+import { canRead, getRevision } from '../designs/lookups';
 import { computeRevision } from '../designs/dimensions';
 import { DomainError } from '../http/errors';
 import type { SessionUser } from '../accounts/auth';

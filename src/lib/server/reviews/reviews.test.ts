@@ -4,8 +4,10 @@ import { createAccount } from '../accounts/accounts';
 import { toSessionUser, type SessionUser } from '../accounts/auth';
 import { db } from '../db';
 import { auditLog, designs, mailQueue, reviews, users, type Role } from '../db/schema';
-import { createDesign, getDesignBySlug, listRevisions, starterContent } from '../designs/designs';
-import { getRevision, getRevisionById, startRevision, submitRevision, withdrawRevision } from '../designs/revisions';
+import { createDesign, starterContent } from '../designs/designs';
+import { getDesignBySlug, listRevisions } from '../designs/lookups';
+import { startRevision, submitRevision, withdrawRevision } from '../designs/revisions';
+import { getRevision, getRevisionById } from '../designs/lookups';
 import { confirmReject, listQueue, reviewsPanelData, submitReview } from './reviews';
 import { DomainError } from '../http/errors';
 

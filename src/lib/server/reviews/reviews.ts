@@ -9,7 +9,7 @@ import { DomainError } from '../http/errors';
 import { audit } from '../moderation/audit';
 import { newId } from '../accounts/accounts';
 import { reindexDesign } from '../designs/search';
-import { ownerName } from '../designs/designs';
+import { ownerName } from '../accounts/users';
 import { notifyRejectConfirmed, notifyReview, type Tx } from '../mail/notify';
 import type { SessionUser } from '../accounts/auth';
 

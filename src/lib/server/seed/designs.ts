@@ -7,8 +7,10 @@ import { parseDesignFile } from '$lib/design-file';
 import { db } from '../db';
 import { users } from '../db/schema';
 import { toSessionUser } from '../accounts/auth';
-import { createDesign, getDesignBySlug } from '../designs/designs';
-import { getRevision, saveDraft, startRevision, submitRevision } from '../designs/revisions';
+import { createDesign } from '../designs/designs';
+import { getDesignBySlug } from '../designs/lookups';
+import { saveDraft, startRevision, submitRevision } from '../designs/revisions';
+import { getRevision } from '../designs/lookups';
 
 /** Which demo member authored which demo design (everything else: the first author). */
 const DEMO_OWNERS: Record<string, string> = {

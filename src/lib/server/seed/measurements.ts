@@ -2,7 +2,7 @@
 // as a member's file and marked as demo data. Never check values.
 import { and, desc, eq } from 'drizzle-orm';
 import { syntheticResonatorSweep, toTouchstone } from '$lib/rf/sweeps/synthetic';
-import type { Sweep } from '$lib/rf/sweeps/sweep';
+import type { Sweep } from '$lib/rf/sweeps/types';
 import { db } from '../db';
 import { designs, measurements, revisions, users } from '../db/schema';
 import { toSessionUser } from '../accounts/auth';

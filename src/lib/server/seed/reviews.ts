@@ -3,8 +3,9 @@ import { eq } from 'drizzle-orm';
 import { db } from '../db';
 import { reviews, users } from '../db/schema';
 import { toSessionUser, type SessionUser } from '../accounts/auth';
-import { contentOf, getDesignBySlug } from '../designs/designs';
-import { getRevision } from '../designs/revisions';
+import { contentOf } from '../designs/content';
+import { getDesignBySlug } from '../designs/lookups';
+import { getRevision } from '../designs/lookups';
 import { addComment, noteLineCount } from '../reviews/comments';
 import { submitReview } from '../reviews/reviews';
 

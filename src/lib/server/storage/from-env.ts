@@ -1,7 +1,8 @@
 import { env } from '$env/dynamic/private';
 import { join } from 'node:path';
 import { dataDir } from '../http/config';
-import { createStore, type BlobStore, type StoreConfig } from '.';
+import { createStore, type StoreConfig } from './index';
+import type { BlobStore } from './blob';
 
 type Env = Record<string, string | undefined>;
 

@@ -2,7 +2,8 @@ import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { base32, BLOB_KEY, BlobInputError, checkBlobKey, createStore, newBlobKey } from './index';
+import { base32, BLOB_KEY, BlobInputError, checkBlobKey, newBlobKey } from './blob';
+import { createStore } from './index';
 
 describe('base32', () => {
 	it.each([

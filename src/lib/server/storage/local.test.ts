@@ -2,7 +2,7 @@ import { mkdtemp, readdir, readFile, rm, stat, writeFile } from 'node:fs/promise
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { BlobInputError, newBlobKey } from './index';
+import { BlobInputError, newBlobKey } from './blob';
 import { createLocalStore } from './local';
 
 let root: string;

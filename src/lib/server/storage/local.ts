@@ -1,7 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import { mkdir, open, readFile, rename, unlink } from 'node:fs/promises';
 import path from 'node:path';
-import { BlobInputError, checkBlobInput, checkBlobKey, type BlobStore } from './index';
+import { BlobInputError, checkBlobInput, checkBlobKey, type BlobStore } from './blob';
 
 // "no blob under this key", whatever the shape of the tree around it
 const ABSENT = new Set(['ENOENT', 'ENOTDIR', 'EISDIR']);

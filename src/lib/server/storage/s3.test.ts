@@ -1,7 +1,8 @@
 import { createServer, type IncomingMessage, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
-import { BlobInputError, createStore, newBlobKey, type BlobStore } from './index';
+import { BlobInputError, newBlobKey, type BlobStore } from './blob';
+import { createStore } from './index';
 
 // Needs @aws-sdk/client-s3 installed. The server below speaks just enough path-style S3 REST
 // (PUT/GET/DELETE Object, the NoSuchKey error) for the driver; it checks that requests are signed.

@@ -1,4 +1,4 @@
-import { checkBlobInput, checkBlobKey, type BlobStore } from './index';
+import { checkBlobInput, checkBlobKey, type BlobStore } from './blob';
 
 export interface S3StoreConfig {
 	bucket: string;

@@ -1,5 +1,5 @@
 import Complex from 'complex.js';
-import type { Sweep } from '../../rf/sweeps/sweep';
+import type { Sweep } from '../../rf/sweeps/types';
 
 /** Series RLC 1-port built in the test with complex.js, independent of synthetic-sweep.ts. */
 export function rlcSweep(

@@ -1,7 +1,7 @@
 import { error, redirect } from '@sveltejs/kit';
-import { defaultRevision } from '$lib/server/designs/designs';
+import { defaultRevision } from '$lib/server/designs/lookups';
 import { loadDesignRevision, revisionPageData } from '$lib/server/designs/revision-view';
-import { listRevisions } from '$lib/server/designs/designs';
+import { listRevisions } from '$lib/server/designs/lookups';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ params, url, locals }) => {

@@ -2,7 +2,7 @@ import { error } from '@sveltejs/kit';
 import { getAttachment } from '$lib/server/measurements/attachments';
 import { blobStore } from '$lib/server/storage/from-env';
 import { getMeasurement } from '$lib/server/measurements/measurements';
-import { canRead, getRevisionById } from '$lib/server/designs/revisions';
+import { canRead, getRevisionById } from '$lib/server/designs/lookups';
 import type { RequestHandler } from './$types';
 
 const VARIANTS = ['display', 'thumb', 'original'] as const;

@@ -1,5 +1,5 @@
 import { error } from '@sveltejs/kit';
-import { getDesignBySlug } from '$lib/server/designs/designs';
+import { getDesignBySlug } from '$lib/server/designs/lookups';
 import { compareRevisions, resolveCompare } from '$lib/server/reviews/compare';
 import { DomainError } from '$lib/server/http/errors';
 import { formatFrequency } from '$lib/rf/units/frequency';

@@ -5,11 +5,12 @@ import { addComment, listThreads, noteLineCount, setResolved } from '$lib/server
 import { confirmReject, decisionFor, isModerator, isReviewer, reviewsFor, submitReview } from '$lib/server/reviews/reviews';
 import { DomainError } from '$lib/server/http/errors';
 import { isLimited } from '$lib/server/http/rate-limit';
-import { getDesignBySlug, ownerName } from '$lib/server/designs/designs';
+import { getDesignBySlug } from '$lib/server/designs/lookups';
+import { ownerName } from '$lib/server/accounts/users';
 import { claimBand, computeRevision } from '$lib/server/designs/dimensions';
-import { contentOf } from '$lib/server/designs/designs';
+import { contentOf } from '$lib/server/designs/content';
 import { anchorFromForm, commentFormSchema } from '$lib/schemas/review';
-import { canRead, getRevision } from '$lib/server/designs/revisions';
+import { canRead, getRevision } from '$lib/server/designs/lookups';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 /**

@@ -4,7 +4,7 @@ import { apiError } from '$lib/server/http/api';
 import { db } from '$lib/server/db';
 import { users } from '$lib/server/db/schema';
 import { getMeasurement, measurementSeries } from '$lib/server/measurements/measurements';
-import { canRead, getRevisionById } from '$lib/server/designs/revisions';
+import { canRead, getRevisionById } from '$lib/server/designs/lookups';
 import { isLimited } from '$lib/server/http/rate-limit';
 import type { RequestHandler } from './$types';
 

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import { apiError, handleApi } from '$lib/server/http/api';
-import { getDesignBySlug } from '$lib/server/designs/designs';
+import { getDesignBySlug } from '$lib/server/designs/lookups';
 import { compareRevisions, resolveCompare } from '$lib/server/reviews/compare';
 import { isLimited } from '$lib/server/http/rate-limit';
 import type { RequestHandler } from './$types';

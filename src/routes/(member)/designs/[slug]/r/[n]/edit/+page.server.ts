@@ -1,7 +1,7 @@
 import { error, fail, redirect } from '@sveltejs/kit';
 import { contentToEditor, editorToContent, readEditorForm } from '$lib/editor-state';
 import { CATALOGUE_IDS } from '$lib/rf/catalogues/stock';
-import { contentOf } from '$lib/server/designs/designs';
+import { contentOf } from '$lib/server/designs/content';
 import { DomainError } from '$lib/server/http/errors';
 import { requireVerifiedMember } from '$lib/server/http/guards';
 import { isLimited } from '$lib/server/http/rate-limit';

@@ -1,7 +1,8 @@
 import { requireVerifiedMember } from '$lib/server/http/guards';
 import { loadDesignRevision } from '$lib/server/designs/revision-view';
 import { addMeasurement, MAX_SWEEP_BYTES } from '$lib/server/measurements/measurements';
-import { contentOf, ownerName } from '$lib/server/designs/designs';
+import { contentOf } from '$lib/server/designs/content';
+import { ownerName } from '$lib/server/accounts/users';
 import { uploadAccess } from '$lib/server/measurements/uploads';
 import { uploadAction } from '$lib/server/measurements/upload-action';
 import type { Actions, PageServerLoad } from './$types';

@@ -1,7 +1,8 @@
 import { json } from '@sveltejs/kit';
 import { apiError } from '$lib/server/http/api';
-import { getDesignBySlug, ownerName } from '$lib/server/designs/designs';
-import { canRead, getRevision } from '$lib/server/designs/revisions';
+import { getDesignBySlug } from '$lib/server/designs/lookups';
+import { ownerName } from '$lib/server/accounts/users';
+import { canRead, getRevision } from '$lib/server/designs/lookups';
 import { revisionJson } from '$lib/server/designs/exports';
 import type { RequestHandler } from './$types';
 

@@ -1,7 +1,7 @@
 import { parseFrequency } from '$lib/rf/units/frequency';
 import { apiError, jsonText } from '$lib/server/http/api';
 import { revisionTableJson } from '$lib/server/designs/dimensions';
-import { canRead, getRevisionHead } from '$lib/server/designs/revisions';
+import { canRead, getRevisionHead } from '$lib/server/designs/lookups';
 import { isLimited } from '$lib/server/http/rate-limit';
 import { bandFor, parseUnits } from '$lib/server/designs/revision-view';
 import type { RequestHandler } from './$types';

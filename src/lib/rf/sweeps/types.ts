@@ -1,0 +1,68 @@
+/** The shapes every sweep module shares: a sweep, parse options and located parse errors. */
+
+/** A measured or synthetic 1-port sweep. re/im hold Γ = S11 referred to z0. */
+export interface Sweep {
+	source: 'touchstone' | 'csv';
+	z0: number;
+	f_hz: Float64Array;
+	re: Float64Array;
+	im: Float64Array;
+	comments: string[];
+	/** false when the data held only a magnitude (VSWR, return loss, |S11|): re = |Γ|, im = 0, no Smith chart. */
+	phase_known: boolean;
+	version?: 1 | 2;
+}
+
+export type SweepErrorCode =
+	| 'empty'
+	| 'binary'
+	| 'no_data'
+	| 'too_many_points'
+	| 'two_port'
+	| 'unsupported_parameter'
+	| 'bad_option'
+	| 'option_after_data'
+	| 'bad_keyword'
+	| 'missing_keyword'
+	| 'count_mismatch'
+	| 'field_count'
+	| 'not_a_number'
+	| 'bad_value'
+	| 'not_increasing'
+	| 'duplicate_frequency'
+	| 'not_passive'
+	| 'bad_header'
+	| 'ambiguous'
+	| 'bad_argument';
+
+/** A located parse failure; line and column are 1-based. `choices` lists the answers to an 'ambiguous' question. */
+export interface SweepParseError {
+	code: SweepErrorCode;
+	message: string;
+	line?: number;
+	column?: number;
+	field?: 'format' | 'z0' | 'column' | 'quantity' | 'freq_unit';
+	choices?: string[];
+}
+
+export type SweepParseResult = { ok: true; sweep: Sweep } | { ok: false; error: SweepParseError };
+
+export type SweepFormat = 'auto' | 'touchstone' | 'csv';
+export type FrequencyUnit = 'Hz' | 'kHz' | 'MHz' | 'GHz';
+/** What a single CSV value column holds. */
+export type CsvQuantity = 'vswr' | 'rl_db' | 's11_db' | 's11_mag';
+
+export const FREQUENCY_UNITS: readonly FrequencyUnit[] = ['Hz', 'kHz', 'MHz', 'GHz'];
+export const CSV_QUANTITIES: readonly CsvQuantity[] = ['vswr', 'rl_db', 's11_db', 's11_mag'];
+
+export interface ParseSweepOptions {
+	format?: SweepFormat;
+	/** Reference impedance: labels CSV data; a Touchstone file with another R is renormalized to it. */
+	z0?: number;
+	/** CSV: the value column to use, by header name or 1-based index. */
+	column?: string | number;
+	/** CSV: what that column holds, when its header does not say. */
+	quantity?: CsvQuantity;
+	/** CSV: frequency unit, when the frequency header carries none. */
+	freq_unit?: FrequencyUnit;
+}
