@@ -1,4 +1,6 @@
 /** Pure scale and tick helpers for the SVG charts (no framework imports, shared by server and client). */
+import { hzUnitFor } from '$lib/rf/units/frequency';
+import type { FrequencyUnit } from '$lib/rf/sweeps/types';
 
 export interface LinearScale {
 	map(value: number): number;
@@ -60,18 +62,9 @@ export function tickCountFor(lengthPx: number, spacingPx: number): number {
 	return Math.max(2, Math.floor(lengthPx / spacingPx));
 }
 
-export type FrequencyUnit = 'Hz' | 'kHz' | 'MHz' | 'GHz';
-
-const UNITS: { unit: FrequencyUnit; divisor: number }[] = [
-	{ unit: 'GHz', divisor: 1e9 },
-	{ unit: 'MHz', divisor: 1e6 },
-	{ unit: 'kHz', divisor: 1e3 },
-	{ unit: 'Hz', divisor: 1 }
-];
-
+/** Chart axes stop at GHz: a sweep above that is read in GHz too. */
 export function frequencyUnitFor(maxHz: number): { unit: FrequencyUnit; divisor: number } {
-	const m = Math.abs(maxHz);
-	return UNITS.find((u) => m >= u.divisor) ?? UNITS[UNITS.length - 1];
+	return hzUnitFor(maxHz, 'GHz') as { unit: FrequencyUnit; divisor: number };
 }
 
 export interface FrequencyAxis {

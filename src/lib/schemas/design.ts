@@ -1,5 +1,6 @@
 /** Shared zod schemas for a design and one revision's content (forms, API routes, design files). */
 import { z } from 'zod';
+import { MAX_FREQUENCY_HZ } from '../rf/units/frequency';
 
 export const FAMILY_VALUES = [
 	'dipole',
@@ -54,7 +55,7 @@ export const DESIGN_LIMITS = {
 	summaryChars: 500,
 	labelChars: 120,
 	changeNoteChars: 2000,
-	maxFrequencyHz: 1e12
+	maxFrequencyHz: MAX_FREQUENCY_HZ
 } as const;
 
 export const KEY_PATTERN = /^[a-z_][a-z0-9_]{0,39}$/;

@@ -2,6 +2,7 @@
  * Stock catalogues for snapping. Values in metres, sorted ascending. Snap picks the nearest item
  * (ties go to the smaller one).
  */
+import { MM_PER_INCH } from '../units/constants';
 export interface StockItem {
 	name: string;
 	value_m: number;
@@ -81,7 +82,7 @@ const tubeInch: [string, number][] = [
 	['1 5/8', 13 / 8],
 	['2 1/8', 17 / 8]
 ];
-const tube = [...tubeMetric, ...tubeInch.map(([n, d]) => mm(d * 25.4, `${n} in OD tube`))].sort(
+const tube = [...tubeMetric, ...tubeInch.map(([n, d]) => mm(d * MM_PER_INCH, `${n} in OD tube`))].sort(
 	(a, b) => a.value_m - b.value_m
 );
 

@@ -8,7 +8,7 @@
  * bounded by the formula's size (≤ 500 characters, no loops, no matrices, no recursion).
  */
 import type { MathNode } from 'mathjs';
-import { MAX_FORMULA_LENGTH, PARSER_WORDS } from '../units/constants';
+import { MAX_FORMULA_LENGTH, PARSER_WORDS } from './limits';
 import { compileNode, FormulaError } from './compile';
 import type { CompileScope, Compiled } from './types';
 import { parseExpression } from './sandbox';

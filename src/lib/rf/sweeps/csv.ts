@@ -1,7 +1,8 @@
+import { HZ_PER_UNIT, MAX_SWEEP_FREQUENCY_HZ } from '../units/frequency';
+import { FREQUENCY_UNITS } from './types';
 import type { CsvQuantity, FrequencyUnit, ParseSweepOptions, SweepParseResult } from './types';
 import {
 	FREQUENCY_RANGE,
-	MAX_FREQUENCY_HZ,
 	MAX_SWEEP_POINTS,
 	PASSIVE_TOLERANCE,
 	decimalNumber,
@@ -21,7 +22,9 @@ type Reading =
 	| { kind: 'ri'; a: number; b: number }
 	| { kind: 'polar'; a: number; b: number; db: boolean; radians: boolean };
 
-const UNIT_MULT: Record<string, number> = { hz: 1, khz: 1e3, mhz: 1e6, ghz: 1e9 };
+const UNIT_MULT: Record<string, number> = Object.fromEntries(
+	FREQUENCY_UNITS.map((u) => [u.toLowerCase(), HZ_PER_UNIT[u]])
+);
 const QUANTITY_TEXT: Record<CsvQuantity, string> = {
 	vswr: 'VSWR',
 	rl_db: 'return loss in dB (positive)',
@@ -306,9 +309,9 @@ export function parseCsvSweep(text: string, opts: ParseSweepOptions = {}): Sweep
 function askUnit(header: string, line: number): SweepParseResult {
 	const what = header ? `the frequency column '${header}' names no unit` : 'the file has no header';
 	return ambiguous(
-		`${what}: in which unit are the frequencies? Pass freq_unit as one of: Hz, kHz, MHz, GHz.`,
+		`${what}: in which unit are the frequencies? Pass freq_unit as one of: ${FREQUENCY_UNITS.join(', ')}.`,
 		'freq_unit',
-		['Hz', 'kHz', 'MHz', 'GHz'] satisfies FrequencyUnit[],
+		[...FREQUENCY_UNITS],
 		line
 	);
 }
@@ -363,7 +366,7 @@ function readRows(
 			return failAt('not_a_number', what, lineNo, fl.col);
 		}
 		const fcol = fields[freqCol].col;
-		if (!(v[0] >= 0 && v[0] * mult <= MAX_FREQUENCY_HZ)) {
+		if (!(v[0] >= 0 && v[0] * mult <= MAX_SWEEP_FREQUENCY_HZ)) {
 			return failAt('bad_value', FREQUENCY_RANGE, lineNo, fcol);
 		}
 		if (v[0] <= prev) {

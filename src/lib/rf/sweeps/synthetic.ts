@@ -1,3 +1,4 @@
+import { HZ_PER_UNIT } from '../units/frequency';
 import type { FrequencyUnit, Sweep } from './types';
 
 /**
@@ -89,7 +90,6 @@ export function syntheticResonatorSweep(o: ResonatorOptions): Sweep {
 	return sweep;
 }
 
-const UNIT_HZ: Record<FrequencyUnit, number> = { Hz: 1, kHz: 1e3, MHz: 1e6, GHz: 1e9 };
 
 export interface TouchstoneWriteOptions {
 	unit: FrequencyUnit;
@@ -99,7 +99,7 @@ export interface TouchstoneWriteOptions {
 
 /** Touchstone v1 1-port text: comment lines, `# <unit> S <format> R <z0>`, then one line per point. */
 export function toTouchstone(sweep: Sweep, o: TouchstoneWriteOptions): string {
-	const mult = UNIT_HZ[o.unit];
+	const mult = HZ_PER_UNIT[o.unit];
 	const f = sweep.f_hz;
 	let step = Infinity;
 	for (let i = 1; i < f.length; i++) step = Math.min(step, f[i] - f[i - 1]);

@@ -1,3 +1,6 @@
+import { DEG } from '../units/constants';
+import { HZ_PER_UNIT, MAX_SWEEP_FREQUENCY_HZ } from '../units/frequency';
+import { FREQUENCY_UNITS } from './types';
 import type { Sweep, SweepErrorCode, SweepParseError, SweepParseResult } from './types';
 import { renormalizeSweep } from './metrics';
 
@@ -10,8 +13,7 @@ import { renormalizeSweep } from './metrics';
 export const MAX_SWEEP_POINTS = 200_000;
 /** |Γ| above 1 by more than printing round-off is refused as non-passive data. */
 export const PASSIVE_TOLERANCE = 1e-9;
-export const MAX_FREQUENCY_HZ = 1e15;
-export const FREQUENCY_RANGE = 'frequency must lie between 0 Hz and 1e15 Hz';
+export const FREQUENCY_RANGE = `frequency must lie between 0 Hz and ${MAX_SWEEP_FREQUENCY_HZ} Hz`;
 const MAX_COMMENTS = 200;
 const MAX_COMMENT_LENGTH = 500;
 
@@ -45,7 +47,9 @@ export function keepComment(comments: string[], text: string): void {
 	if (t !== '' && comments.length < MAX_COMMENTS) comments.push(t.slice(0, MAX_COMMENT_LENGTH));
 }
 
-const UNITS: Record<string, number> = { hz: 1, khz: 1e3, mhz: 1e6, ghz: 1e9 };
+const UNITS: Record<string, number> = Object.fromEntries(
+	FREQUENCY_UNITS.map((u) => [u.toLowerCase(), HZ_PER_UNIT[u]])
+);
 type DataFormat = 'ma' | 'db' | 'ri';
 interface OptionLine {
 	mult: number;
@@ -394,7 +398,7 @@ function onData(st: State, line: string, p: number, lineNo: number): Failure | n
 			s + 1
 		);
 	}
-	if (!(fv >= 0 && fv * o.mult <= MAX_FREQUENCY_HZ)) {
+	if (!(fv >= 0 && fv * o.mult <= MAX_SWEEP_FREQUENCY_HZ)) {
 		return failAt('bad_value', FREQUENCY_RANGE, lineNo, s0 + 1);
 	}
 	if (fv <= st.prev) {
@@ -423,5 +427,4 @@ function onData(st: State, line: string, p: number, lineNo: number): Failure | n
 	return null;
 }
 
-const DEG = Math.PI / 180;
 const PASSIVE_LIMIT_SQ = (1 + PASSIVE_TOLERANCE) ** 2;

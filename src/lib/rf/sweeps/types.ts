@@ -1,4 +1,5 @@
 /** The shapes every sweep module shares: a sweep, parse options and located parse errors. */
+import type { HzUnit } from '../units/frequency';
 
 /** A measured or synthetic 1-port sweep. re/im hold Γ = S11 referred to z0. */
 export interface Sweep {
@@ -48,7 +49,7 @@ export interface SweepParseError {
 export type SweepParseResult = { ok: true; sweep: Sweep } | { ok: false; error: SweepParseError };
 
 export type SweepFormat = 'auto' | 'touchstone' | 'csv';
-export type FrequencyUnit = 'Hz' | 'kHz' | 'MHz' | 'GHz';
+export type FrequencyUnit = Exclude<HzUnit, 'THz'>;
 /** What a single CSV value column holds. */
 export type CsvQuantity = 'vswr' | 'rl_db' | 's11_db' | 's11_mag';
 

@@ -4,7 +4,8 @@
  */
 import { z } from 'zod';
 import { CATALOGUE_IDS } from '../catalogues/stock';
-import { MAX_FORMULA_LENGTH, MAX_FREQUENCY_HZ, MAX_PARAMETERS, MAX_ROWS } from '../units/constants';
+import { MAX_FORMULA_LENGTH, MAX_PARAMETERS, MAX_ROWS } from '../formulas/limits';
+import { MAX_FREQUENCY_HZ } from '../units/frequency';
 import { keyProblem } from './compile';
 import { ROW_KINDS, type EvaluateOptions, type TableDefinition } from './types';
 

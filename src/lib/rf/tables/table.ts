@@ -7,7 +7,8 @@
  * pass the rounded integer. Parameters are reported in `parameters` with their own errors.
  */
 import { snapToStock } from '../catalogues/stock';
-import { C, DEG, MAX_FREQUENCY_HZ } from '../units/constants';
+import { C, DEG } from '../units/constants';
+import { formatFrequency, MAX_FREQUENCY_HZ } from '../units/frequency';
 import { ANGLE, FREQUENCY, LENGTH, isDimless, sameDims, siUnit, type Dims } from '../formulas/dims';
 import { FormulaRuntimeError } from '../formulas/functions';
 import { formatLength, lengthIn, type Units } from '../units/length';
@@ -34,13 +35,6 @@ export { compileTable, keyProblem, type CompiledTable } from './compile';
 
 const NUMBER = (v: number) => String(Number(v.toPrecision(6)));
 
-/** 2.45 GHz, 868 MHz, 14.2 kHz. */
-export function formatHz(hz: number): string {
-	const [div, unit] =
-		hz >= 1e9 ? [1e9, 'GHz'] : hz >= 1e6 ? [1e6, 'MHz'] : hz >= 1e3 ? [1e3, 'kHz'] : [1, 'Hz'];
-	return `${NUMBER(hz / div)} ${unit}`;
-}
-
 interface Shown {
 	value: number;
 	unit: string;
@@ -60,7 +54,7 @@ function show(si: number, dims: Dims, units: Units): Shown {
 	}
 	if (sameDims(dims, ANGLE))
 		return { value: si / DEG, unit: 'deg', display: `${(si / DEG).toFixed(2)}°` };
-	if (sameDims(dims, FREQUENCY)) return { value: si, unit: 'Hz', display: formatHz(si) };
+	if (sameDims(dims, FREQUENCY)) return { value: si, unit: 'Hz', display: formatFrequency(si) };
 	if (isDimless(dims)) return { value: si, unit: '', display: NUMBER(si) };
 	const unit = siUnit(dims);
 	return { value: si, unit, display: `${NUMBER(si)} ${unit}` };
@@ -93,7 +87,7 @@ function ratioWarning(
 	const ratio = si / env[r.slot];
 	if (ratio >= r.min && ratio <= r.max) return undefined;
 	return (
-		`${key} / ${r.of} = ${NUMBER(ratio)} at ${formatHz(f)} is outside the range ${r.min} to ${r.max} ` +
+		`${key} / ${r.of} = ${NUMBER(ratio)} at ${formatFrequency(f)} is outside the range ${r.min} to ${r.max} ` +
 		'the design was measured over; this dimension may no longer be right.'
 	);
 }
@@ -170,7 +164,7 @@ function rowResult(st: EvalState, row: CompiledRow): RowResult {
 		throw e;
 	}
 	if (!Number.isFinite(v)) {
-		const message = `the result is not a finite number at ${formatHz(f)} (a division by zero, or the root of a negative value?)`;
+		const message = `the result is not a finite number at ${formatFrequency(f)} (a division by zero, or the root of a negative value?)`;
 		return rowError(st, row, { message });
 	}
 	const warnings: string[] = [];
@@ -207,7 +201,7 @@ function rowResult(st: EvalState, row: CompiledRow): RowResult {
 		out.sensitivity = s;
 		if (band && (f < band[0] || f > band[1])) {
 			warnings.push(
-				`the target frequency ${formatHz(f)} is outside the band, so no tolerance keeps the resonance inside it`
+				`the target frequency ${formatFrequency(f)} is outside the band, so no tolerance keeps the resonance inside it`
 			);
 		} else if (
 			s.tolerance_mm !== undefined &&

@@ -4,21 +4,35 @@ export type FrequencyParse = { ok: true; hz: number } | { ok: false; message: st
 
 /** Below 1 kHz a bare number is almost always a forgotten unit, not a real antenna frequency. */
 export const MIN_FREQUENCY_HZ = 1e3;
+/** Above 1 THz the free-space wavelength is under 0.3 mm; no design here is meant for that. */
 export const MAX_FREQUENCY_HZ = 1e12;
+/** A measured sweep may run higher (instrument files), but not past this. */
+export const MAX_SWEEP_FREQUENCY_HZ = 1e15;
 const MAX_INPUT_LENGTH = 64;
 
+/** The one table of Hz prefixes, largest first: its decimal exponent and its unit name. */
+export const HZ_PREFIXES = [
+	{ unit: 'THz', exponent: 12 },
+	{ unit: 'GHz', exponent: 9 },
+	{ unit: 'MHz', exponent: 6 },
+	{ unit: 'kHz', exponent: 3 },
+	{ unit: 'Hz', exponent: 0 }
+] as const;
+
+export type HzUnit = (typeof HZ_PREFIXES)[number]['unit'];
+
+/** Hz in one of each unit: HZ_PER_UNIT.MHz is 1e6. */
+export const HZ_PER_UNIT = Object.fromEntries(
+	HZ_PREFIXES.map((p) => [p.unit, 10 ** p.exponent])
+) as Record<HzUnit, number>;
+
 /** Decimal exponent of each accepted unit, keyed by lower case (so "mhz" and "m" mean mega). */
-const UNIT_EXPONENTS: Record<string, number> = {
-	hz: 0,
-	k: 3,
-	khz: 3,
-	m: 6,
-	mhz: 6,
-	g: 9,
-	ghz: 9,
-	t: 12,
-	thz: 12
-};
+const UNIT_EXPONENTS: Record<string, number> = Object.fromEntries(
+	HZ_PREFIXES.flatMap((p) => {
+		const name = p.unit.toLowerCase();
+		return name === 'hz' ? [[name, 0]] : [[name, p.exponent], [name[0], p.exponent]];
+	})
+);
 
 // Digit groups may be separated by a space, no-break space or thin space ("868 000 000 Hz").
 const NUMBER_RE =
@@ -71,21 +85,20 @@ export function parseFrequency(text: string): FrequencyParse {
 	return { ok: true, hz };
 }
 
-const SCALES: { min: number; div: number; unit: string }[] = [
-	{ min: 1e12, div: 1e12, unit: 'THz' },
-	{ min: 1e9, div: 1e9, unit: 'GHz' },
-	{ min: 1e6, div: 1e6, unit: 'MHz' },
-	{ min: 1e3, div: 1e3, unit: 'kHz' },
-	{ min: 0, div: 1, unit: 'Hz' }
-];
+/** The largest unit not above |hz| (Hz for anything below 1 kHz), up to `largest`. */
+export function hzUnitFor(hz: number, largest: HzUnit = 'THz'): { unit: HzUnit; divisor: number } {
+	const m = Math.abs(hz);
+	const from = HZ_PREFIXES.findIndex((p) => p.unit === largest);
+	const p = HZ_PREFIXES.slice(from).find((x) => m >= 10 ** x.exponent) ?? HZ_PREFIXES[4];
+	return { unit: p.unit, divisor: 10 ** p.exponent };
+}
 
 /** "5.8 GHz", "433.92 MHz", "144 MHz": up to `significant` digits, trailing zeros dropped. */
 export function formatFrequency(hz: number, significant = 7): string {
 	if (typeof hz !== 'number' || !Number.isFinite(hz)) return '—';
-	const magnitude = Math.abs(hz);
-	const scale = SCALES.find((s) => magnitude >= s.min) ?? SCALES[SCALES.length - 1];
+	const scale = hzUnitFor(hz);
 	const digits = Math.min(Math.max(Math.round(significant), 1), 15);
-	let text = (hz / scale.div).toPrecision(digits);
+	let text = (hz / scale.divisor).toPrecision(digits);
 	if (text.includes('e')) text = String(Number(text));
 	if (text.includes('.')) text = text.replace(/0+$/, '').replace(/\.$/, '');
 	return `${text} ${scale.unit}`;

@@ -1,7 +1,8 @@
-/** Length display: millimetres, decimal inches (3 places) and fractional inches to 1/64. */
-const MM_PER_INCH = 25.4;
+/** Length display, the one formatter: millimetres, decimal inches (3 places) and fractional inches to 1/64. */
+import { MM_PER_INCH } from './constants';
 
-export type Units = 'mm' | 'in' | 'in_frac';
+export const UNITS = ['mm', 'in', 'in_frac'] as const;
+export type Units = (typeof UNITS)[number];
 
 export function formatMm(mm: number, decimals = 2): string {
 	return `${mm.toFixed(decimals)} mm`;

@@ -21,7 +21,9 @@ import {
 	stroke
 } from 'pdf-lib';
 import type { PDFFont, PDFOperator, PDFPage } from 'pdf-lib';
-import { formatFrequency } from '../../rf/units/frequency';
+import { formatFrequency } from '$lib/rf/units/frequency';
+import { formatMm } from '$lib/rf/units/length';
+import { MM_PER_INCH } from '$lib/rf/units/constants';
 
 export interface BuildSheetRow {
 	key: string;
@@ -65,7 +67,7 @@ const MAX_SPLIT_MM = 2000;
 const KAPPA = 0.5522847498;
 
 export function mmToPt(mm: number): number {
-	return (mm * 72) / 25.4;
+	return (mm * 72) / MM_PER_INCH;
 }
 
 // cp1252 (WinAnsiEncoding) code points above Latin-1's printable range, plus Latin-1 itself.
@@ -121,7 +123,6 @@ export function isLengthRow(row: BuildSheetRow): boolean {
 	);
 }
 
-const mm = (value: number) => `${value.toFixed(2)} mm`;
 
 class Sheet {
 	page!: PDFPage;
@@ -276,7 +277,7 @@ function cutList(s: Sheet, rows: BuildSheetRow[]) {
 					`${row.label} (${row.key})`,
 					row.kind,
 					row.error ? '-' : `${row.display} ${row.unit}`.trim(),
-					row.stock ? `${row.stock.name} (${mm(row.stock.value_mm)})` : '',
+					row.stock ? `${row.stock.name} (${formatMm(row.stock.value_mm)})` : '',
 					row.error ?? ''
 				]
 			: COLUMNS.map(([name]) => name);
@@ -305,7 +306,7 @@ function gauges(s: Sheet, rows: BuildSheetRow[], units: BuildSheetInput['units']
 	for (const row of rows) {
 		const valueMm = row.value_mm as number;
 		const inUnits = units === 'mm' ? '' : ` (${row.display} ${row.unit})`;
-		const label = `${row.label} (${row.key}): ${mm(valueMm)}${inUnits}`;
+		const label = `${row.label} (${row.key}): ${formatMm(valueMm)}${inUnits}`;
 		const lengthPt = mmToPt(valueMm);
 		const parts = Math.ceil(lengthPt / maxPt);
 		if (valueMm > MAX_SPLIT_MM) {
@@ -314,7 +315,7 @@ function gauges(s: Sheet, rows: BuildSheetRow[], units: BuildSheetInput['units']
 		}
 		const note =
 			parts > 1
-				? ` - longer than the page: ${parts} equal parts of ${mm(valueMm / parts)}, join end to end`
+				? ` - longer than the page: ${parts} equal parts of ${formatMm(valueMm / parts)}, join end to end`
 				: '';
 		s.room(16 + parts * 28);
 		s.paragraph(label + note, 9);
@@ -331,7 +332,7 @@ function circles(s: Sheet, rows: BuildSheetRow[]) {
 	for (const row of rows) {
 		const d = row.value_mm as number;
 		const r = mmToPt(d) / 2;
-		const label = `Ø ${mm(d)} - ${row.label} (${row.key}); the cross marks the centre`;
+		const label = `Ø ${formatMm(d)} - ${row.label} (${row.key}); the cross marks the centre`;
 		const pageRoom = s.size[1] - 2 * MARGIN - FOOTER - 40;
 		if (2 * r + mmToPt(6) > Math.min(s.width, pageRoom)) {
 			s.paragraph(`${label}: too large to draw 1:1, mark it with a compass or a string.`, 9);

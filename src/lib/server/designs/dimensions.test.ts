@@ -2,13 +2,22 @@ import { describe, expect, it } from 'vitest';
 import { createDesign, starterContent } from './designs';
 import { saveDraft, submitRevision } from './revisions';
 import { getRevisionById } from './lookups';
-import { computeRevision, revisionTableJson } from './dimensions';
+import { tableForView, tableForViewJson } from './dimensions';
+import type { ViewState } from '$lib/rf/units/view-state';
 import { member } from '../../testing/server-setup';
 
 const C = 299_792_458; // m/s, exact (SI definition of the metre)
 
-describe('revisionTableJson', () => {
-	it('answers for a submitted revision as computeRevision does, per frequency, units and band', async () => {
+const view = (frequencyHz: number, more: Partial<ViewState> = {}): ViewState => ({
+	frequencyHz,
+	units: 'mm',
+	bandId: null,
+	band: undefined,
+	...more
+});
+
+describe('tableForViewJson', () => {
+	it('answers for a submitted revision as tableForView does, per frequency, units and band', async () => {
 		const author = await member('dims-json@example.org');
 		const { revisionId } = createDesign(
 			author,
@@ -18,19 +27,19 @@ describe('revisionTableJson', () => {
 		submitRevision(author, revisionId);
 		const r = getRevisionById(revisionId)!;
 		const views = [
-			{ frequencyHz: 5.8e9 },
-			{ frequencyHz: 5.8e9 },
-			{ frequencyHz: 2.45e9, units: 'in' as const },
-			{ frequencyHz: 2.45e9, bandHz: [2.4e9, 2.5e9] as const }
+			view(5.8e9),
+			view(5.8e9),
+			view(2.45e9, { units: 'in' }),
+			view(2.45e9, { band: [2.4e9, 2.5e9] })
 		];
 		for (const v of views)
-			expect(revisionTableJson(r, v)).toBe(JSON.stringify(computeRevision(r, v)));
+			expect(tableForViewJson(r, v)).toBe(JSON.stringify(tableForView(r, v)));
 		// [calc] λ/4 at 5.8 GHz = 299792458 / 5.8e9 / 4 = 12.922 mm
-		const at58 = JSON.parse(revisionTableJson(r, { frequencyHz: 5.8e9 }));
+		const at58 = JSON.parse(tableForViewJson(r, view(5.8e9)));
 		expect(at58.rows[0].value_mm).toBeCloseTo((C / 5.8e9 / 4) * 1000, 6);
-		const at245 = JSON.parse(revisionTableJson(r, { frequencyHz: 2.45e9 }));
+		const at245 = JSON.parse(tableForViewJson(r, view(2.45e9)));
 		expect(at245.rows[0].value_mm).toBeCloseTo((C / 2.45e9 / 4) * 1000, 6);
-		const inches = JSON.parse(revisionTableJson(r, { frequencyHz: 2.45e9, units: 'in' }));
+		const inches = JSON.parse(tableForViewJson(r, view(2.45e9, { units: 'in' })));
 		expect(inches.rows[0].display).toMatch(/in$/);
 	});
 
@@ -43,14 +52,14 @@ describe('revisionTableJson', () => {
 			content
 		);
 		const before = JSON.parse(
-			revisionTableJson(getRevisionById(revisionId)!, { frequencyHz: 2.45e9 })
+			tableForViewJson(getRevisionById(revisionId)!, view(2.45e9))
 		);
 		saveDraft(author, revisionId, {
 			...content,
 			rows: [{ ...content.rows[0], formula: 'lambda / 2' }]
 		});
 		const after = JSON.parse(
-			revisionTableJson(getRevisionById(revisionId)!, { frequencyHz: 2.45e9 })
+			tableForViewJson(getRevisionById(revisionId)!, view(2.45e9))
 		);
 		// [calc] λ/2 = 2 × λ/4
 		expect(after.rows[0].value_mm).toBeCloseTo(2 * before.rows[0].value_mm, 9);

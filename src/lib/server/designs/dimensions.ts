@@ -3,6 +3,7 @@ import type { RevisionContent } from '$lib/schemas/design';
 import { DomainError } from '../http/errors';
 import { toTableDefinition, unknownCatalogues } from '$lib/rf/tables/revision-table';
 import type { Revision } from '../db/schema';
+import type { ViewState } from '$lib/rf/units/view-state';
 import { contentOf } from './content';
 import { getRevisionById } from './lookups';
 import { Doorkeeper, Lru } from '../http/lru';
@@ -32,6 +33,7 @@ function compiledFor(r: RevisionKey): Prepared {
 	return t;
 }
 
+/** The table at any frequency and options (submitting, comparing); pages go through tableForView. */
 export function computeRevision(r: RevisionKey, opts: EvaluateOptions): TableResult {
 	const { table, unknown } = compiledFor(r);
 	const result = evaluateTable(table, opts);
@@ -41,26 +43,29 @@ export function computeRevision(r: RevisionKey, opts: EvaluateOptions): TableRes
 	return result;
 }
 
+/**
+ * The one way a revision and a view (frequency, units, band) become rows: the design page, the
+ * build sheet, the CSV export and the dimensions API all call this.
+ */
+export function tableForView(r: RevisionKey, view: ViewState): TableResult {
+	return computeRevision(r, { frequencyHz: view.frequencyHz, units: view.units, bandHz: view.band });
+}
+
 // The API's answer for one view of a submitted revision never changes either, so its JSON text is
 // kept (about 8 kB for 40 rows) once that view is asked for a second time. Drafts are computed each time.
 const answers = new Lru<string, string>(1000);
 const asked = new Doorkeeper(4096);
 
-/** computeRevision as JSON text, as the dimensions API sends it. */
-export function revisionTableJson(r: RevisionKey, opts: EvaluateOptions): string {
-	if (r.state === 'draft') return JSON.stringify(computeRevision(r, opts));
-	const key = `${r.id} ${opts.frequencyHz} ${opts.units ?? 'mm'} ${opts.bandHz?.join(' ') ?? ''}`;
+/** tableForView as JSON text, as the dimensions API sends it. */
+export function tableForViewJson(r: RevisionKey, view: ViewState): string {
+	if (r.state === 'draft') return JSON.stringify(tableForView(r, view));
+	const key = `${r.id} ${view.frequencyHz} ${view.units} ${view.band?.join(' ') ?? ''}`;
 	let text = answers.get(key);
 	if (text === undefined) {
-		text = JSON.stringify(computeRevision(r, opts));
+		text = JSON.stringify(tableForView(r, view));
 		if (asked.seen(key)) answers.set(key, text);
 	}
 	return text;
-}
-
-/** Band edges for sensitivity tolerances: the revision's claimed band. */
-export function claimBand(r: Pick<Revision, 'claimLoHz' | 'claimHiHz'>): [number, number] | undefined {
-	return r.claimLoHz && r.claimHiHz ? [r.claimLoHz, r.claimHiHz] : undefined;
 }
 
 /** Keys and sizes the engine refuses (unit names such as "mm", function names) are a 422 on that field. */

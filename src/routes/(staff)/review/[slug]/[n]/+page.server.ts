@@ -7,7 +7,8 @@ import { DomainError } from '$lib/server/http/errors';
 import { isLimited } from '$lib/server/http/rate-limit';
 import { getDesignBySlug } from '$lib/server/designs/lookups';
 import { ownerName } from '$lib/server/accounts/users';
-import { claimBand, computeRevision } from '$lib/server/designs/dimensions';
+import { tableForView } from '$lib/server/designs/dimensions';
+import { parseViewState } from '$lib/rf/units/view-state';
 import { contentOf } from '$lib/server/designs/content';
 import { anchorFromForm, commentFormSchema } from '$lib/schemas/review';
 import { canRead, getRevision } from '$lib/server/designs/lookups';
@@ -49,7 +50,8 @@ export const load: PageServerLoad = (event) => {
 			lines: noteLineCount(r)
 		},
 		previousNumber: prev?.number ?? null,
-		table: computeRevision(r, { frequencyHz: r.designHz, bandHz: claimBand(r) }),
+		// The review reads the table at the design frequency against the claimed band: the default view.
+		table: tableForView(r, parseViewState(new URLSearchParams(), r).view),
 		tolerances: Object.fromEntries(contentOf(r).rows.filter((row) => row.tolerance_mm !== undefined).map((row) => [row.key, row.tolerance_mm as number])),
 		rowKeys: contentOf(r).rows.map((row) => ({ key: row.key, label: row.label })),
 		rowsDiff: diff.rows,
