@@ -95,6 +95,13 @@ test('stored notes are sanitized for a corpus of XSS vectors; others cannot edit
 	const editUrl = page.url();
 	expect(XSS_VECTORS.length).toBeGreaterThanOrEqual(50);
 	await page.getByLabel('Build notes (Markdown)').fill(XSS_VECTORS.join('\n\n'));
+	// The preview comes from the server's one render path: what the author sees is what readers get.
+	await page.getByRole('tab', { name: 'Preview' }).click();
+	await expect(page.getByTestId('notes-preview').locator('p').first()).toBeVisible();
+	// Svelte's hydration markers are comments; the rendered markup is the rest.
+	const markup = (html: string) => html.replace(/<!--[\s\S]*?-->/g, '').trim();
+	const previewed = markup(await page.getByTestId('notes-preview').innerHTML());
+	await page.getByRole('tab', { name: 'Write' }).click();
 	const dialogs: string[] = [];
 	page.on('dialog', (d) => {
 		dialogs.push(d.message());
@@ -105,6 +112,7 @@ test('stored notes are sanitized for a corpus of XSS vectors; others cannot edit
 	const view = editUrl.replace(/\/edit$/, '');
 	await page.goto(view);
 	const notes = page.getByTestId('notes');
+	expect(markup(await notes.innerHTML())).toBe(previewed);
 	expect(await notes.locator('script, iframe, object, embed, form, input, style, base, meta').count()).toBe(0);
 	const handlers = await notes.evaluate((el) =>
 		[...el.querySelectorAll('*')].flatMap((n) => [...n.attributes].filter((a) => /^on/i.test(a.name) || /^\s*(javascript|vbscript|data):/i.test(a.value)).map((a) => a.name))

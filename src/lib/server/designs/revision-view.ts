@@ -7,6 +7,7 @@ import { canRead, getDesignBySlug, getRevision, listRevisions } from './lookups'
 import { ownerName } from '../accounts/users';
 import { tableForView } from './dimensions';
 import { notesHtml } from './notes';
+import { requireVerifiedMember } from '../http/guards';
 import { measurementsPanelData } from '../measurements/panel';
 import { reviewsPanelData } from '../reviews/reviews';
 
@@ -24,6 +25,18 @@ export function loadDesignRevision(slug: string, n: string | undefined, user: Se
 		if (!revision || !canRead(user, revision)) error(404, `This design has no revision r${n}.`);
 	}
 	return { design, revision };
+}
+
+/** The draft a URL names, for its author only (the editor and its preview). */
+export function editableDraft(slug: string, n: string) {
+	const user = requireVerifiedMember();
+	const { design, revision } = loadDesignRevision(slug, n, user);
+	const r = revision!;
+	if (r.authorId !== user.id) error(403, 'Only the author can edit this draft.');
+	if (r.state !== 'draft') {
+		error(409, `r${r.number} is ${r.state}; its content is frozen. Start a new revision to change it.`);
+	}
+	return { user, design, r };
 }
 
 export function revisionPageData(design: Design, r: Revision, url: URL, user: SessionUser | null) {

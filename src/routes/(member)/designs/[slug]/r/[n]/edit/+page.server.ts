@@ -3,23 +3,13 @@ import { contentToEditor, editorToContent, readEditorForm } from '$lib/editor-st
 import { CATALOGUE_IDS } from '$lib/rf/catalogues/stock';
 import { contentOf } from '$lib/server/designs/content';
 import { DomainError } from '$lib/server/http/errors';
-import { requireVerifiedMember } from '$lib/server/http/guards';
 import { isLimited } from '$lib/server/http/rate-limit';
-import { loadDesignRevision } from '$lib/server/designs/revision-view';
+import { editableDraft } from '$lib/server/designs/revision-view';
 import { saveDraft, submitRevision } from '$lib/server/designs/revisions';
 import type { Actions, PageServerLoad } from './$types';
 
-function editable(slug: string, n: string) {
-	const user = requireVerifiedMember();
-	const { design, revision } = loadDesignRevision(slug, n, user);
-	const r = revision!;
-	if (r.authorId !== user.id) error(403, 'Only the author can edit this draft.');
-	if (r.state !== 'draft') error(409, `r${r.number} is ${r.state}; its content is frozen. Start a new revision to change it.`);
-	return { user, design, r };
-}
-
 export const load: PageServerLoad = ({ params }) => {
-	const { design, r } = editable(params.slug, params.n);
+	const { design, r } = editableDraft(params.slug, params.n);
 	return {
 		design: { slug: design.slug, title: design.title },
 		revision: { number: r.number, updatedAt: r.updatedAt.toISOString() },
@@ -29,7 +19,7 @@ export const load: PageServerLoad = ({ params }) => {
 };
 
 async function save(event: Parameters<Actions[string]>[0], andSubmit: boolean) {
-	const { user, design, r } = editable(event.params.slug!, event.params.n!);
+	const { user, design, r } = editableDraft(event.params.slug!, event.params.n!);
 	if (await isLimited('write', event)) return fail(429, { message: 'Too many saves; wait a minute.', errors: {}, editor: null });
 	const editor = readEditorForm(await event.request.formData());
 	const parsed = editorToContent(editor);
