@@ -192,3 +192,10 @@ test('bad authoring input: taken slug, long formula, 201 rows, huge notes, unver
 	expect((await p2.goto('/designs/new'))?.status()).toBe(403);
 	await ctx.close();
 });
+
+test('an error page shows the id handleError gave, so a reader can quote it', async ({ page }) => {
+	const res = await page.goto('/no-such-page-anywhere');
+	expect(res?.status()).toBe(404);
+	await expect(page.getByTestId('error-page')).toContainText('Not found');
+	await expect(page.getByTestId('error-id')).toHaveText(/^[0-9a-f-]{36}$/);
+});

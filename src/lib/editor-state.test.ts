@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { contentToEditor, editorEvaluateRequest, editorToContent, readEditorForm } from './editor-state';
+import { contentToEditor, editorEvaluateRequest, editorFromForm, editorToContent } from './editor-state';
+import { editorFormSchema } from './schemas/editor';
+import { readForm } from './server/http/actions';
 import type { RevisionContent } from './schemas/design';
 
 const content: RevisionContent = {
@@ -23,15 +25,17 @@ describe('editor state', () => {
 		expect(back).toEqual({ ok: true, content });
 	});
 
-	it('reads repeated form fields per row and skips blank rows', () => {
-		const e = readEditorForm(
+	it('reads repeated form fields per row and skips blank rows', async () => {
+		const posted = await readForm(
 			form([
 				['design_frequency', '5.8 GHz'], ['claim_centre', '5.8 GHz'], ['claim_lo', '5725 MHz'], ['claim_hi', '5875 MHz'], ['claim_vswr', '2'],
 				['r_key', 'side'], ['r_label', 'Side'], ['r_formula', 'lambda/4'], ['r_kind', 'resonant'], ['r_catalogue', ''], ['r_tolerance', '0,1'], ['r_ratio_lo', ''], ['r_ratio_hi', ''],
 				['r_key', ''], ['r_label', ''], ['r_formula', ''], ['r_kind', 'resonant'], ['r_catalogue', ''], ['r_tolerance', ''], ['r_ratio_lo', ''], ['r_ratio_hi', ''],
 				['notes', 'a\r\nb'], ['change_note', '']
-			])
+			]),
+			editorFormSchema
 		);
+		const e = editorFromForm(posted.data);
 		const out = editorToContent(e);
 		expect(out.ok).toBe(true);
 		if (!out.ok) return;

@@ -4,6 +4,7 @@
  */
 import { formatFrequency, parseFrequency } from './rf/units/frequency';
 import { revisionContentSchema, type RevisionContent, type RowKindValue } from './schemas/design';
+import type { EditorForm } from './schemas/editor';
 
 export interface EditorParameter { key: string; label: string; value: string; unit: string; ratio_lo: string; ratio_hi: string }
 export interface EditorRow {
@@ -63,21 +64,16 @@ export function contentToEditor(c: RevisionContent): EditorState {
 	};
 }
 
-/** Reads the editor's form: one input per cell, names repeated per row (works without JavaScript). */
-export function readEditorForm(data: FormData): EditorState {
-	const all = (name: string) =>
-		data.getAll(name).slice(0, MAX_FORM_ROWS).map((v) => (typeof v === 'string' ? v : ''));
-	const get = (name: string) => {
-		const v = data.get(name);
-		return typeof v === 'string' ? v : '';
-	};
-	const p = { key: all('p_key'), label: all('p_label'), value: all('p_value'), unit: all('p_unit'), lo: all('p_ratio_lo'), hi: all('p_ratio_hi') };
+/** The editor's state from its posted form (see editorFormSchema); rows past MAX_FORM_ROWS are dropped. */
+export function editorFromForm(f: EditorForm): EditorState {
+	const all = (cells: string[]) => cells.slice(0, MAX_FORM_ROWS);
+	const p = { key: all(f.p_key), label: f.p_label, value: f.p_value, unit: f.p_unit, lo: f.p_ratio_lo, hi: f.p_ratio_hi };
 	const r = {
-		key: all('r_key'), label: all('r_label'), formula: all('r_formula'), kind: all('r_kind'),
-		catalogue: all('r_catalogue'), tolerance: all('r_tolerance'), lo: all('r_ratio_lo'), hi: all('r_ratio_hi')
+		key: all(f.r_key), label: f.r_label, formula: f.r_formula, kind: f.r_kind,
+		catalogue: f.r_catalogue, tolerance: f.r_tolerance, lo: f.r_ratio_lo, hi: f.r_ratio_hi
 	};
 	return {
-		design_frequency: get('design_frequency'),
+		design_frequency: f.design_frequency,
 		parameters: p.key.map((key, i) => ({
 			key, label: p.label[i] ?? '', value: p.value[i] ?? '', unit: p.unit[i] ?? '', ratio_lo: p.lo[i] ?? '', ratio_hi: p.hi[i] ?? ''
 		})),
@@ -86,11 +82,11 @@ export function readEditorForm(data: FormData): EditorState {
 			catalogue: r.catalogue[i] ?? '', tolerance: r.tolerance[i] ?? '', ratio_lo: r.lo[i] ?? '', ratio_hi: r.hi[i] ?? ''
 		})),
 		claim: {
-			centre: get('claim_centre'), lo: get('claim_lo'), hi: get('claim_hi'), vswr: get('claim_vswr'),
-			gain: get('claim_gain'), gain_verified: get('claim_gain_verified') === 'on'
+			centre: f.claim_centre, lo: f.claim_lo, hi: f.claim_hi, vswr: f.claim_vswr,
+			gain: f.claim_gain, gain_verified: f.claim_gain_verified
 		},
-		notes: get('notes').replace(/\r\n/g, '\n'),
-		change_note: get('change_note')
+		notes: f.notes.replace(/\r\n/g, '\n'),
+		change_note: f.change_note
 	};
 }
 

@@ -33,6 +33,9 @@ export const resetConfirmSchema = z.object({
 	password
 });
 
+/** The confirm button of an e-mail link carries its token. */
+export const verifySchema = z.object({ token: z.string().max(100).default('') });
+
 export const roleChangeSchema = z.object({
 	userId: z.string().min(1).max(40),
 	role: z.enum(['member', 'reviewer', 'moderator'])

@@ -124,3 +124,31 @@ export function firstIssue(error: z.ZodError): { field: string; message: string 
 	const field = String(issue?.path[0] ?? 'form');
 	return { field, message: `${field.replace(/_/g, ' ')} ${issue?.message ?? 'is not valid'}` };
 }
+
+const field = z.string().max(20_000).optional();
+
+/**
+ * An upload form as posted (sweep or image): the file and the text fields a refused upload sends
+ * back to refill the form. The fields are checked by measurementFormSchema, buildReportSchema or
+ * photoFormSchema where the upload is stored.
+ */
+export const uploadFormSchema = z.object({
+	file: z.instanceof(File).optional(),
+	instrument: field,
+	reference_plane: field,
+	measured_on: field,
+	notes: field,
+	format: field,
+	z0: field,
+	column: field,
+	quantity: field,
+	freq_unit: field,
+	target_frequency: field,
+	deviations: field,
+	materials: field,
+	kind: field,
+	caption: field,
+	keep_original: field
+});
+
+export type UploadForm = z.infer<typeof uploadFormSchema>;

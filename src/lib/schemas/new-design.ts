@@ -15,3 +15,10 @@ export const newDesignSchema = z.object({
 	summary: z.string().trim().max(DESIGN_LIMITS.summaryChars, `At most ${DESIGN_LIMITS.summaryChars} characters.`).default(''),
 	frequency: z.string().trim().min(1, 'Enter the design frequency, like "2.45 GHz".').max(40)
 });
+
+/** A design file (.md with front matter) to start a draft from. */
+export const importDesignSchema = z.object({
+	file: z
+		.instanceof(File, { error: 'Choose a design file (.md) to import.' })
+		.refine((f) => f.size > 0, 'Choose a design file (.md) to import.')
+});

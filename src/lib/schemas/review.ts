@@ -34,6 +34,19 @@ export const commentFormSchema = z.object({
 
 export type CommentForm = z.infer<typeof commentFormSchema>;
 
+/** The review form as posted; submitReview checks it with reviewSchema and names the field. */
+export const verdictFormSchema = z.object({
+	verdict: z.string().max(20).default(''),
+	summary: z.string().default('')
+});
+
+export const resolveFormSchema = z.object({
+	comment_id: z.string().max(64).default(''),
+	resolved: z.string().max(1).default('1')
+});
+
+export const confirmRejectFormSchema = z.object({ review_id: z.string().max(64).default('') });
+
 export type CommentAnchor =
 	| { kind: 'general' }
 	| { kind: 'row'; rowKey: string }

@@ -7,6 +7,11 @@ export class DomainError extends Error {
 	) {
 		super(message);
 	}
+
+	/** What an API error body and an action failure say: `{ message, field? }`, and more in subclasses. */
+	toJSON(): Record<string, unknown> {
+		return this.field ? { message: this.message, field: this.field } : { message: this.message };
+	}
 }
 
 export const notFound = (what = 'That page') => new DomainError(404, `${what} does not exist.`);

@@ -1,16 +1,23 @@
-// The one shape of an upload action: guard, rate limit, read the multipart body, store, redirect.
+// The one shape of an upload action: guard, rate limit, read the multipart form, store, redirect.
 import { fail, redirect, type RequestEvent } from '@sveltejs/kit';
+import { uploadFormSchema, type UploadForm } from '$lib/schemas/measurement';
 import { requireVerifiedMember } from '../http/guards';
 import { isLimited } from '../http/rate-limit';
+import { actionFailure, readForm } from '../http/actions';
 import { loadDesignRevision } from '../designs/revision-view';
-import { DomainError } from '../http/errors';
-import { formFields, formFile, UploadError } from './uploads';
+import { tooLarge, UploadError } from './uploads';
 import type { SessionUser } from '../accounts/auth';
 import type { Revision } from '../db/schema';
 
-/** Text fields a failed upload sends back to refill the form (never the file). */
-const KEEP =
-	/^(instrument|reference_plane|measured_on|notes|format|z0|column|quantity|freq_unit|target_frequency|deviations|materials|kind|caption)$/;
+const refused = (status: number, message: string) =>
+	fail(status, { message, field: null, line: null, column: null, values: {} });
+
+/** The text fields as sent (absent ones left out), to validate in the store and to refill the form. */
+function textFields(data: UploadForm): Record<string, string> {
+	const out: Record<string, string> = {};
+	for (const [k, v] of Object.entries(data)) if (typeof v === 'string') out[k] = v;
+	return out;
+}
 
 export async function uploadAction(
 	event: RequestEvent<{ slug: string; n: string }>,
@@ -22,50 +29,28 @@ export async function uploadAction(
 	) => Promise<{ id: string }>
 ) {
 	const user = requireVerifiedMember();
-	const { design, revision } = loadDesignRevision(
-		event.params.slug,
-		event.params.n,
-		event.locals.user
-	);
+	const { design, revision } = loadDesignRevision(event.params.slug, event.params.n, event.locals.user);
 	if (await isLimited('upload', event)) {
-		return fail(429, {
-			message: 'Too many uploads at once; wait a minute and try again.',
-			field: null,
-			line: null,
-			column: null,
-			values: {}
-		});
+		return refused(429, 'Too many uploads at once; wait a minute and try again.');
 	}
-	let form: FormData;
+	let form: Awaited<ReturnType<typeof readForm<typeof uploadFormSchema>>>;
 	try {
-		form = await event.request.formData();
+		form = await readForm(await event.request.formData(), uploadFormSchema, { files: true });
 	} catch {
-		return fail(400, {
-			message: 'The upload could not be read; send the form again.',
-			field: null,
-			line: null,
-			column: null,
-			values: {}
-		});
+		return refused(400, 'The upload could not be read; send the form again.');
 	}
-	const fields = formFields(form);
-	const values = Object.fromEntries(Object.entries(fields).filter(([k]) => KEEP.test(k)));
+	const values = textFields(form.data);
 	let id: string;
 	try {
-		const file = await formFile(form, 'file', opts.max, opts.what);
-		id = (await store(user, revision!, { fields, file })).id;
-	} catch (e) {
-		if (e instanceof DomainError) {
-			const where = e instanceof UploadError ? e : null;
-			return fail(e.status, {
-				message: e.message,
-				field: e.field ?? null,
-				line: where?.line ?? null,
-				column: where?.column ?? null,
-				values
-			});
+		const file = form.data.file;
+		if (!file || (file.size === 0 && file.name === '')) {
+			throw new UploadError(400, `Choose a file to upload (${opts.what}).`, 'file');
 		}
-		throw e;
+		if (file.size > opts.max) throw tooLarge(file.size, opts.max, opts.what);
+		const bytes = new Uint8Array(await file.arrayBuffer());
+		id = (await store(user, revision!, { fields: values, file: { bytes, name: file.name } })).id;
+	} catch (e) {
+		return actionFailure(e, { values });
 	}
 	redirect(303, `/designs/${design.slug}/r/${revision!.number}?added=${id}#${opts.anchor}`);
 }

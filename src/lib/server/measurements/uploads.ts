@@ -18,8 +18,7 @@ export class UploadError extends DomainError {
 
 	/** The JSON error body of the API: `{ message, field?, line?, column? }`. */
 	toJSON(): Record<string, unknown> {
-		const out: Record<string, unknown> = { message: this.message };
-		if (this.field) out.field = this.field;
+		const out = super.toJSON();
 		if (this.line !== undefined) out.line = this.line;
 		if (this.column !== undefined) out.column = this.column;
 		return out;
@@ -100,23 +99,6 @@ export async function readBodyLimited(
 		out.set(c, at);
 		at += c.byteLength;
 	}
-	return out;
-}
-
-/** A file part of a multipart form, or a 400 naming the field. */
-export async function formFile(form: FormData, field: string, max: number, what: string) {
-	const file = form.get(field);
-	if (!(file instanceof File) || (file.size === 0 && file.name === '')) {
-		throw new UploadError(400, `Choose a file to upload (${what}).`, field);
-	}
-	if (file.size > max) throw tooLarge(file.size, max, what);
-	return { bytes: new Uint8Array(await file.arrayBuffer()), name: file.name };
-}
-
-/** Text fields of a form as a plain record (files and repeated fields ignored). */
-export function formFields(form: FormData): Record<string, string> {
-	const out: Record<string, string> = {};
-	for (const [k, v] of form) if (typeof v === 'string' && !(k in out)) out[k] = v;
 	return out;
 }
 

@@ -1,5 +1,7 @@
 import { error, fail, redirect } from '@sveltejs/kit';
 import { peekEmailToken, verifyEmail, TOKEN_MESSAGES } from '$lib/server/accounts/accounts';
+import { verifySchema } from '$lib/schemas/auth';
+import { readForm } from '$lib/server/http/actions';
 import type { Actions, PageServerLoad } from './$types';
 
 // The link only shows a button: GET never changes state, and mail scanners that prefetch links
@@ -13,8 +15,9 @@ export const load: PageServerLoad = ({ url }) => {
 
 export const actions: Actions = {
 	default: async ({ request }) => {
-		const token = String((await request.formData()).get('token') ?? '');
-		const result = verifyEmail(token);
+		const form = await readForm(request, verifySchema);
+		if (!form.valid) return fail(400, { problem: TOKEN_MESSAGES.invalid });
+		const result = verifyEmail(form.data.token);
 		if (!result.ok) return fail(400, { problem: TOKEN_MESSAGES[result.reason] });
 		redirect(303, '/signin?verified=1');
 	}

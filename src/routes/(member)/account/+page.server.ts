@@ -6,7 +6,8 @@ import { issueEmailToken } from '$lib/server/accounts/accounts';
 import { sendVerificationMail } from '$lib/server/accounts/account-mail';
 import { requireUser } from '$lib/server/http/guards';
 import { isLimited } from '$lib/server/http/rate-limit';
-import { FAMILY_VALUES, type Family } from '$lib/schemas/design';
+import { notificationsFormSchema } from '$lib/schemas/account';
+import { firstProblem, readForm } from '$lib/server/http/actions';
 import { notificationSettings, setNotificationSettings } from '$lib/server/mail/notify';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -35,14 +36,12 @@ export const actions: Actions = {
 	},
 	notifications: async (event) => {
 		const user = requireUser();
-		const data = await event.request.formData();
-		const families = data.getAll('family').map(String);
-		const unknown = families.filter((f) => !(FAMILY_VALUES as readonly string[]).includes(f));
-		if (unknown.length) return fail(400, { notifyMessage: `Unknown family "${unknown[0].slice(0, 40)}".` });
+		const form = await readForm(event.request, notificationsFormSchema);
+		if (!form.valid) return fail(400, { notifyMessage: firstProblem(form).message });
 		setNotificationSettings(user.id, {
-			notifyOnSubmit: data.get('notify_on_submit') === 'on',
-			notifyOnFeedback: data.get('notify_on_feedback') === 'on',
-			followedFamilies: families as Family[]
+			notifyOnSubmit: form.data.notify_on_submit,
+			notifyOnFeedback: form.data.notify_on_feedback,
+			followedFamilies: form.data.family
 		});
 		return { notifySaved: true, notifyMessage: 'Notification settings saved.' };
 	}

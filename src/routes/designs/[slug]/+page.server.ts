@@ -1,8 +1,10 @@
 import { error, redirect } from '@sveltejs/kit';
-import { defaultRevision } from '$lib/server/designs/lookups';
+import { defaultRevision, listRevisions } from '$lib/server/designs/lookups';
 import { loadDesignRevision, revisionPageData } from '$lib/server/designs/revision-view';
-import { listRevisions } from '$lib/server/designs/lookups';
-import type { PageServerLoad } from './$types';
+import { startRevision } from '$lib/server/designs/revisions';
+import { requireVerifiedMember } from '$lib/server/http/guards';
+import { actionFailure } from '$lib/server/http/actions';
+import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ params, url, locals }) => {
 	const { design } = loadDesignRevision(params.slug, undefined, locals.user);
@@ -14,4 +16,19 @@ export const load: PageServerLoad = ({ params, url, locals }) => {
 		error(404, 'This design has no published revision yet.');
 	}
 	return revisionPageData(design, shown, url, locals.user);
+};
+
+/** What the design's owner does to the design as a whole. */
+export const actions: Actions = {
+	newRevision: ({ params, locals }) => {
+		const user = requireVerifiedMember();
+		const { design } = loadDesignRevision(params.slug, undefined, locals.user);
+		let number: number;
+		try {
+			number = startRevision(user, design).number;
+		} catch (e) {
+			return actionFailure(e);
+		}
+		redirect(303, `/designs/${design.slug}/r/${number}/edit`);
+	}
 };

@@ -1,12 +1,12 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { superValidate, setError, message } from 'sveltekit-superforms';
+import { actionFailure, firstProblem, formFailure, readForm } from '$lib/server/http/actions';
 import { zod4 } from 'sveltekit-superforms/adapters';
-import { newDesignSchema } from '$lib/schemas/new-design';
+import { importDesignSchema, newDesignSchema } from '$lib/schemas/new-design';
 import { parseFrequency } from '$lib/rf/units/frequency';
 import { parseDesignFile, MAX_DESIGN_FILE_BYTES } from '$lib/design-file';
 import { requireVerifiedMember } from '$lib/server/http/guards';
 import { createDesign, starterContent } from '$lib/server/designs/designs';
-import { DomainError } from '$lib/server/http/errors';
 import { isLimited } from '$lib/server/http/rate-limit';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -23,32 +23,33 @@ export const actions: Actions = {
 		if (!form.valid) return fail(400, { form });
 		const f = parseFrequency(form.data.frequency);
 		if (!f.ok) return setError(form, 'frequency', f.message);
+		let slug: string;
 		try {
 			const { frequency: _f, slug: wanted, ...meta } = form.data;
-			const { slug } = createDesign(user, { ...meta, slug: wanted || undefined }, starterContent(f.hz));
-			redirect(303, `/designs/${slug}/r/1/edit`);
+			slug = createDesign(user, { ...meta, slug: wanted || undefined }, starterContent(f.hz)).slug;
 		} catch (e) {
-			if (e instanceof DomainError && e.field === 'slug') return setError(form, 'slug', e.message);
-			throw e;
+			return formFailure(form, e);
 		}
+		redirect(303, `/designs/${slug}/r/1/edit`);
 	},
 	/** Starts a draft from a design file (.md with front matter), through the same parser as export. */
 	import: async (event) => {
 		const user = requireVerifiedMember();
 		if (await isLimited('write', event)) return fail(429, { importError: 'Too many changes at once; wait a minute.' });
-		const data = await event.request.formData();
-		const file = data.get('file');
-		if (!(file instanceof File) || file.size === 0) return fail(400, { importError: 'Choose a design file (.md) to import.' });
+		const form = await readForm(event.request, importDesignSchema, { files: true });
+		if (!form.valid) return fail(400, { importError: firstProblem(form).message });
+		const { file } = form.data;
 		if (file.size > MAX_DESIGN_FILE_BYTES) return fail(413, { importError: 'The design file is larger than 512 kB.' });
 		const parsed = parseDesignFile(await file.text());
 		if (!parsed.ok) return fail(422, { importError: parsed.error.message });
 		const { title, slug, family, polarization, summary, ...content } = parsed.value;
+		let created: string;
 		try {
-			const created = createDesign(user, { title, slug, family, polarization, summary }, content);
-			redirect(303, `/designs/${created.slug}/r/1/edit`);
+			created = createDesign(user, { title, slug, family, polarization, summary }, content).slug;
 		} catch (e) {
-			if (e instanceof DomainError) return fail(e.status, { importError: e.message });
-			throw e;
+			const failure = actionFailure(e);
+			return fail(failure.status, { importError: failure.data.message });
 		}
+		redirect(303, `/designs/${created}/r/1/edit`);
 	}
 };

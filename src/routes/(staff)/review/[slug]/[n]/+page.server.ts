@@ -3,14 +3,20 @@ import { requireUser } from '$lib/server/http/guards';
 import { compareRevisions, readableRevisions } from '$lib/server/reviews/compare';
 import { addComment, listThreads, noteLineCount, setResolved } from '$lib/server/reviews/comments';
 import { confirmReject, decisionFor, isModerator, isReviewer, reviewsFor, submitReview } from '$lib/server/reviews/reviews';
-import { DomainError } from '$lib/server/http/errors';
+import { actionFailure, firstProblem, readForm } from '$lib/server/http/actions';
 import { isLimited } from '$lib/server/http/rate-limit';
 import { getDesignBySlug } from '$lib/server/designs/lookups';
 import { ownerName } from '$lib/server/accounts/users';
 import { tableForView } from '$lib/server/designs/dimensions';
 import { parseViewState } from '$lib/rf/units/view-state';
 import { contentOf } from '$lib/server/designs/content';
-import { anchorFromForm, commentFormSchema } from '$lib/schemas/review';
+import {
+	anchorFromForm,
+	commentFormSchema,
+	confirmRejectFormSchema,
+	resolveFormSchema,
+	verdictFormSchema
+} from '$lib/schemas/review';
 import { canRead, getRevision } from '$lib/server/designs/lookups';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
@@ -74,77 +80,67 @@ export const load: PageServerLoad = (event) => {
 
 type Values = Record<string, string | undefined>;
 
-function failed(e: unknown, action: string, values: Values = {}) {
-	if (e instanceof DomainError) return fail(e.status, { action, message: e.message, field: e.field ?? null, values });
-	throw e;
-}
-
-const text = (data: FormData, name: string) => {
-	const v = data.get(name);
-	return typeof v === 'string' ? v : undefined;
-};
-
-async function limited(event: RequestEvent) {
-	return isLimited('write', event);
-}
+const tooMany = (action: string, values: Values = {}) =>
+	fail(429, { action, message: 'Too many changes at once; wait a minute.', field: null, values });
 
 export const actions: Actions = {
 	comment: async (event) => {
 		const { user, design, r } = open(event, true);
-		const data = await event.request.formData();
-		const raw = {
-			body: text(data, 'body') ?? '',
-			anchor: text(data, 'anchor') || 'general',
-			row_key: text(data, 'row_key'),
-			line_start: text(data, 'line_start'),
-			line_end: text(data, 'line_end'),
-			parent_id: text(data, 'parent_id') || undefined
+		const form = await readForm(event.request, commentFormSchema);
+		const d = form.data;
+		const values: Values = {
+			body: d.body.slice(0, 25_000),
+			anchor: d.anchor,
+			row_key: d.row_key,
+			line_start: d.line_start === undefined ? undefined : String(d.line_start),
+			line_end: d.line_end === undefined ? undefined : String(d.line_end),
+			parent_id: d.parent_id
 		};
-		const values: Values = { body: raw.body.slice(0, 25_000), anchor: raw.anchor, row_key: raw.row_key, line_start: raw.line_start, line_end: raw.line_end, parent_id: raw.parent_id };
-		if (await limited(event)) return fail(429, { action: 'comment', message: 'Too many changes at once; wait a minute.', field: null, values });
-		const parsed = commentFormSchema.safeParse(raw);
-		if (!parsed.success) {
-			const issue = parsed.error.issues[0];
-			return fail(422, { action: 'comment', message: `${issue.path.join('.')}: ${issue.message}`, field: String(issue.path[0]), values });
+		if (await isLimited('write', event)) return tooMany('comment', values);
+		if (!form.valid) {
+			const p = firstProblem(form);
+			return fail(422, { action: 'comment', message: `${p.field}: ${p.message}`, field: p.field, values });
 		}
 		let id: string;
 		try {
-			id = addComment(user, r.id, { body: parsed.data.body, anchor: anchorFromForm(parsed.data), parentId: parsed.data.parent_id }).id;
+			const anchor = anchorFromForm(d);
+			id = addComment(user, r.id, { body: d.body, anchor, parentId: d.parent_id || undefined }).id;
 		} catch (e) {
-			return failed(e, 'comment', values);
+			return actionFailure(e, { action: 'comment', values });
 		}
 		redirect(303, `/review/${design.slug}/${r.number}#comment-${id}`);
 	},
 	resolve: async (event) => {
 		const { user, design, r } = open(event, true);
-		const data = await event.request.formData();
+		const { data } = await readForm(event.request, resolveFormSchema);
 		try {
-			setResolved(user, text(data, 'comment_id') ?? '', text(data, 'resolved') !== '0');
+			setResolved(user, data.comment_id, data.resolved !== '0');
 		} catch (e) {
-			return failed(e, 'resolve');
+			return actionFailure(e, { action: 'resolve', values: {} as Values });
 		}
-		redirect(303, `/review/${design.slug}/${r.number}#comment-${text(data, 'comment_id')}`);
+		redirect(303, `/review/${design.slug}/${r.number}#comment-${data.comment_id}`);
 	},
 	review: async (event) => {
 		const { user, design, r } = open(event, true);
-		const data = await event.request.formData();
-		const values: Values = { verdict: text(data, 'verdict') ?? '', summary: (text(data, 'summary') ?? '').slice(0, 6000) };
-		if (await limited(event)) return fail(429, { action: 'review', message: 'Too many changes at once; wait a minute.', field: null, values });
+		// The verdict is checked by submitReview with reviewSchema; the form only carries the text.
+		const { data } = await readForm(event.request, verdictFormSchema);
+		const values: Values = { verdict: data.verdict, summary: data.summary.slice(0, 6000) };
+		if (await isLimited('write', event)) return tooMany('review', values);
 		let id: string;
 		try {
-			id = submitReview(user, r.id, { verdict: values.verdict ?? '', summary: values.summary ?? '' }).id;
+			id = submitReview(user, r.id, { verdict: data.verdict, summary: data.summary }).id;
 		} catch (e) {
-			return failed(e, 'review', values);
+			return actionFailure(e, { action: 'review', values });
 		}
 		redirect(303, `/review/${design.slug}/${r.number}#review-${id}`);
 	},
 	confirmReject: async (event) => {
 		const { user, design, r } = open(event, true);
-		const data = await event.request.formData();
+		const { data } = await readForm(event.request, confirmRejectFormSchema);
 		try {
-			confirmReject(user, text(data, 'review_id') ?? '');
+			confirmReject(user, data.review_id);
 		} catch (e) {
-			return failed(e, 'confirmReject');
+			return actionFailure(e, { action: 'confirmReject', values: {} as Values });
 		}
 		redirect(303, `/review/${design.slug}/${r.number}#reviews`);
 	}

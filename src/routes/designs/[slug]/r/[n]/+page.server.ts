@@ -1,8 +1,8 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
 import { loadDesignRevision, revisionPageData } from '$lib/server/designs/revision-view';
 import { requireVerifiedMember } from '$lib/server/http/guards';
-import { startRevision, submitRevision, withdrawRevision } from '$lib/server/designs/revisions';
-import { DomainError } from '$lib/server/http/errors';
+import { actionFailure } from '$lib/server/http/actions';
+import { submitRevision, withdrawRevision } from '$lib/server/designs/revisions';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ params, url, locals }) => {
@@ -10,35 +10,26 @@ export const load: PageServerLoad = ({ params, url, locals }) => {
 	return revisionPageData(design, revision!, url, locals.user);
 };
 
-function run<T>(fn: () => T) {
-	try {
-		return { ok: true as const, value: fn() };
-	} catch (e) {
-		if (e instanceof DomainError) return { ok: false as const, failure: fail(e.status, { message: e.message, field: e.field ?? null }) };
-		throw e;
-	}
-}
-
+/** What a revision's author does to that revision; design-level actions live on the design's route. */
 export const actions: Actions = {
 	submit: ({ params, locals }) => {
 		const user = requireVerifiedMember();
 		const { design, revision } = loadDesignRevision(params.slug, params.n, locals.user);
-		const r = run(() => submitRevision(user, revision!.id));
-		if (!r.ok) return r.failure;
+		try {
+			submitRevision(user, revision!.id);
+		} catch (e) {
+			return actionFailure(e);
+		}
 		redirect(303, `/designs/${design.slug}/r/${revision!.number}?submitted=1`);
 	},
 	withdraw: ({ params, locals }) => {
 		const user = requireVerifiedMember();
 		const { design, revision } = loadDesignRevision(params.slug, params.n, locals.user);
-		const r = run(() => withdrawRevision(user, revision!.id));
-		if (!r.ok) return r.failure;
+		try {
+			withdrawRevision(user, revision!.id);
+		} catch (e) {
+			return actionFailure(e);
+		}
 		redirect(303, `/designs/${design.slug}/r/${revision!.number}`);
-	},
-	newRevision: ({ params, locals }) => {
-		const user = requireVerifiedMember();
-		const { design } = loadDesignRevision(params.slug, params.n, locals.user);
-		const r = run(() => startRevision(user, design));
-		if (!r.ok) return r.failure;
-		redirect(303, `/designs/${design.slug}/r/${r.value.number}/edit`);
 	}
 };
