@@ -7,6 +7,7 @@
  * allow-listed functions are accepted; mathjs never evaluates user text here, so evaluation is
  * bounded by the formula's size (≤ 500 characters, no loops, no matrices, no recursion).
  */
+import { LRUCache } from 'lru-cache';
 import type { MathNode } from 'mathjs';
 import { MAX_FORMULA_LENGTH, PARSER_WORDS } from './limits';
 import { compileNode, FormulaError } from './compile';
@@ -27,7 +28,7 @@ interface Parsed {
 type ParseEntry = Parsed | LocatedError;
 
 const CACHE_LIMIT = 5000;
-const cache = new Map<string, ParseEntry>();
+const cache = new LRUCache<string, ParseEntry>({ max: CACHE_LIMIT });
 let parses = 0;
 const WORDS: ReadonlySet<string> = new Set(PARSER_WORDS);
 
@@ -83,15 +84,10 @@ function parseUncached(text: string): ParseEntry {
 /** Parsed AST for a formula text, from the LRU cache when seen before. */
 export function parseFormula(text: string): ParseEntry {
 	const hit = cache.get(text);
-	if (hit) {
-		cache.delete(text);
-		cache.set(text, hit);
-		return hit;
-	}
+	if (hit) return hit;
 	parses++;
 	const entry = parseUncached(text);
 	cache.set(text, entry);
-	if (cache.size > CACHE_LIMIT) cache.delete(cache.keys().next().value as string);
 	return entry;
 }
 

@@ -5,6 +5,7 @@
  * parse/compile are kept first, then every function that parses, evaluates or changes the
  * instance is overridden to throw.
  */
+import { LRUCache } from 'lru-cache';
 import { all, create, type MathNode, type Unit } from 'mathjs';
 import { snapValue, isCatalogueId } from '../catalogues/stock';
 import * as fam from './families';
@@ -102,19 +103,20 @@ export interface UnitLiteral {
 	offset: boolean;
 }
 
-const unitCache = new Map<string, UnitLiteral | null>();
+// Unit names seen in formulas, with what they are (null: not a unit); a handful in practice.
+const unitCache = new LRUCache<string, { literal: UnitLiteral | null }>({ max: 1000 });
 
 /** SI factor and dimensions of a unit name such as 'mm', 'GHz', 'deg'; null if it is not a unit. */
 export function unitLiteral(name: string): UnitLiteral | null {
 	const hit = unitCache.get(name);
-	if (hit !== undefined) return hit;
+	if (hit) return hit.literal;
 	let out: UnitLiteral | null = null;
 	if (/^[A-Za-z_]\w*$/.test(name) && math.Unit.isValuelessUnit(name)) {
 		const u = math.unit(1, name);
 		const offset = u.units.some((x) => x.unit.offset !== 0);
 		out = { si: u.value as number, dims: [...u.dimensions], offset };
 	}
-	if (unitCache.size < 1000) unitCache.set(name, out);
+	unitCache.set(name, { literal: out });
 	return out;
 }
 

@@ -6,7 +6,8 @@ import type { Revision } from '../db/schema';
 import type { ViewState } from '$lib/rf/units/view-state';
 import { contentOf } from './content';
 import { getRevisionById } from './lookups';
-import { Doorkeeper, Lru } from '../http/lru';
+import { LRUCache } from 'lru-cache';
+import { Doorkeeper } from '../http/doorkeeper';
 
 interface Prepared {
 	table: CompiledTable;
@@ -15,7 +16,7 @@ interface Prepared {
 }
 
 // Submitted revisions never change, so their compiled tables are kept; drafts are keyed by save time.
-const compiled = new Lru<string, Prepared>(500);
+const compiled = new LRUCache<string, Prepared>({ max: 500 });
 
 /** What the cache needs of a revision; the content is read only on a miss (see getRevisionHead). */
 type RevisionKey = Pick<Revision, 'id' | 'state' | 'updatedAt'> & Partial<Revision>;
@@ -53,7 +54,7 @@ export function tableForView(r: RevisionKey, view: ViewState): TableResult {
 
 // The API's answer for one view of a submitted revision never changes either, so its JSON text is
 // kept (about 8 kB for 40 rows) once that view is asked for a second time. Drafts are computed each time.
-const answers = new Lru<string, string>(1000);
+const answers = new LRUCache<string, string>({ max: 1000 });
 const asked = new Doorkeeper(4096);
 
 /** tableForView as JSON text, as the dimensions API sends it. */

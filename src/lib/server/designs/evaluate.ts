@@ -7,9 +7,9 @@ import { parseEvaluateOptions, parseEvaluateRequest, toTableInput } from '$lib/r
 import { compileTable, evaluateTable, TableInputError, type CompiledTable, type TableResult } from '$lib/rf/tables/table';
 import { DomainError } from '../http/errors';
 import { hashKey } from '../http/hash';
-import { Lru } from '../http/lru';
+import { LRUCache } from 'lru-cache';
 
-const compiledTables = new Lru<string, CompiledTable>(256);
+const compiledTables = new LRUCache<string, CompiledTable>({ max: 256 });
 
 /**
  * The key of the table part of a body (what it says, not how it is spaced); null if not an object.

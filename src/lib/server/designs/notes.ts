@@ -1,8 +1,8 @@
 import type { Revision } from '../db/schema';
 import { renderMarkdown } from '../markdown/markdown';
-import { Lru } from '../http/lru';
+import { LRUCache } from 'lru-cache';
 
-const cache = new Lru<string, string>(1000);
+const cache = new LRUCache<string, string>({ max: 1000 });
 
 /** Sanitized HTML of a revision's notes; frozen revisions are rendered once. */
 export function notesHtml(r: Revision): string {

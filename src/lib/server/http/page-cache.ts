@@ -2,7 +2,8 @@ import { randomBytes } from 'node:crypto';
 import type { Handle, RequestEvent } from '@sveltejs/kit';
 import { sqlite } from '../db';
 import { SESSION_COOKIE } from '../accounts/auth';
-import { Doorkeeper } from './lru';
+import { LRUCache } from 'lru-cache';
+import { Doorkeeper } from './doorkeeper';
 
 /**
  * Design pages as a reader without a session sees them, kept in memory. An entry is the response
@@ -31,10 +32,15 @@ interface Entry {
 	csp: string[];
 }
 
-const entries = new Map<string, Entry>();
+// Least recently used pages go first, by count and by size; a page over an eighth of it is not kept.
+const entries = new LRUCache<string, Entry>({
+	max: MAX_ENTRIES,
+	maxSize: MAX_BYTES,
+	maxEntrySize: MAX_BYTES / 8,
+	sizeCalculation: (e) => e.bytes
+});
 // A page is kept from its second request on: pages asked for once cost no memory.
 let asked = new Doorkeeper(4 * MAX_ENTRIES);
-let bytes = 0;
 
 const stampQuery = sqlite.prepare('SELECT stamp FROM page_stamp WHERE id = 1').pluck();
 
@@ -53,44 +59,20 @@ function cacheable(event: RequestEvent): boolean {
 	);
 }
 
-function forget(key: string): void {
-	const old = entries.get(key);
-	if (old) {
-		entries.delete(key);
-		bytes -= old.bytes;
-	}
-}
-
-function remember(key: string, entry: Entry): void {
-	forget(key);
-	if (entry.bytes > MAX_BYTES / 8) return;
-	entries.set(key, entry);
-	bytes += entry.bytes;
-	// Map order is insertion order and a hit re-inserts, so the first key is the least recently used.
-	for (const oldest of entries.keys()) {
-		if (entries.size <= MAX_ENTRIES && bytes <= MAX_BYTES) break;
-		forget(oldest);
-	}
-}
-
 export const pageCache: Handle = async ({ event, resolve }) => {
 	if (!cacheable(event)) return resolve(event);
 	const key = event.url.pathname + event.url.search;
 	// Read before rendering: a write during the render leaves the entry already out of date.
 	const stamp = currentStamp();
 	const hit = entries.get(key);
-	if (hit && hit.stamp === stamp) {
-		entries.delete(key);
-		entries.set(key, hit);
-		return serve(hit);
-	}
+	if (hit && hit.stamp === stamp) return serve(hit);
 	const response = await resolve(event);
 	if (response.status !== 200 || response.headers.has('set-cookie') || !response.body)
 		return response;
 	if (!asked.seen(key)) return response;
 	const html = await response.text();
 	const entry = keep(html, response.headers, stamp);
-	remember(key, entry);
+	entries.set(key, entry);
 	return new Response(html, { status: 200, headers: response.headers });
 };
 
@@ -129,11 +111,10 @@ function serve(entry: Entry): Response {
 
 /** For tests: how many pages are kept and their total size. */
 export function pageCacheSize(): { entries: number; bytes: number } {
-	return { entries: entries.size, bytes };
+	return { entries: entries.size, bytes: entries.calculatedSize };
 }
 
 export function clearPageCache(): void {
 	entries.clear();
-	bytes = 0;
 	asked = new Doorkeeper(4 * MAX_ENTRIES);
 }

@@ -151,9 +151,9 @@ describe('SMTP mailer', () => {
 			expect(received).toHaveLength(1);
 			expect(received[0].from).toBe(FROM);
 			expect(received[0].rcpt).toEqual(['ben@example.org']);
-			const eml = parseEml(received[0].raw);
-			expect(eml.headers.get('subject')).toBe('Reset your password');
-			expect(eml.headers.get('message-id')).toBe(id);
+			const eml = await parseEml(received[0].raw);
+			expect(eml.subject).toBe('Reset your password');
+			expect(eml.messageId).toBe(id);
 			// SMTP DATA ends the last line with CRLF (RFC 5321 §4.1.1.4), so one line break is added.
 			expect(eml.text).toBe(`Open ${LINK} within an hour.\n`);
 			expect(eml.links).toEqual([LINK]);

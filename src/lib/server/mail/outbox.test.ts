@@ -3,8 +3,6 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import {
-	decodeEncodedWords,
-	decodeQuotedPrintable,
 	InvalidOutboxIdError,
 	listOutbox,
 	newOutboxId,
@@ -91,24 +89,30 @@ describe('readOutboxMessage', () => {
 	});
 });
 
-describe('parseEml', () => {
-	it('decodes RFC 2047 encoded words (RFC 2047 §8 examples)', () => {
+describe('parseEml (mailparser)', () => {
+	it('decodes RFC 2047 encoded words in headers (RFC 2047 §8 examples)', async () => {
+		const subject = async (h: string) =>
+			(await parseEml(`Subject: ${h}\r\nContent-Type: text/plain\r\n\r\nx`)).subject;
 		// RFC 2047 §8: "=?ISO-8859-1?Q?Andr=E9?= Pirard" displays as "André Pirard".
-		expect(decodeEncodedWords('=?ISO-8859-1?Q?Andr=E9?= Pirard')).toBe('André Pirard');
+		expect(await subject('=?ISO-8859-1?Q?Andr=E9?= Pirard')).toBe('André Pirard');
 		// RFC 2047 §8: "(=?ISO-8859-1?Q?a?= =?ISO-8859-1?Q?b?=)" displays as "(ab)".
-		expect(decodeEncodedWords('(=?ISO-8859-1?Q?a?= =?ISO-8859-1?Q?b?=)')).toBe('(ab)');
+		expect(await subject('(=?ISO-8859-1?Q?a?= =?ISO-8859-1?Q?b?=)')).toBe('(ab)');
 		// RFC 2047 §8: "(=?ISO-8859-1?Q?a_b?=)" displays as "(a b)".
-		expect(decodeEncodedWords('(=?ISO-8859-1?Q?a_b?=)')).toBe('(a b)');
+		expect(await subject('(=?ISO-8859-1?Q?a_b?=)')).toBe('(a b)');
 		// [calc] base64 of the UTF-8 bytes of "Größe" is R3LDtsOfZQ==
-		expect(decodeEncodedWords('=?UTF-8?B?R3LDtsOfZQ==?=')).toBe('Größe');
+		expect(await subject('=?UTF-8?B?R3LDtsOfZQ==?=')).toBe('Größe');
 	});
 
-	it('decodes quoted-printable soft line breaks and =XX bytes (RFC 2045 §6.7)', () => {
-		const bytes = decodeQuotedPrintable('https://x.test/?a=3D1&b=\n=3D2 caf=C3=A9  \nend');
-		expect(new TextDecoder().decode(bytes)).toBe('https://x.test/?a=1&b=2 café\nend');
+	it('decodes quoted-printable soft line breaks and =XX bytes (RFC 2045 §6.7)', async () => {
+		const raw =
+			'Content-Type: text/plain; charset=utf-8\r\nContent-Transfer-Encoding: quoted-printable\r\n\r\n' +
+			'https://x.test/?a=3D1&b=\r\n=3D2 caf=C3=A9\r\nend';
+		const m = await parseEml(raw);
+		expect(m.text).toBe('https://x.test/?a=1&b=2 café\nend');
+		expect(m.links).toEqual(['https://x.test/?a=1&b=2']);
 	});
 
-	it('reads the text part of a nested multipart message and skips attachments', () => {
+	it('reads the text part of a nested multipart message and skips attachments', async () => {
 		const raw = [
 			'Subject: nested',
 			'Content-Type: multipart/mixed; boundary="outer"',
@@ -136,8 +140,8 @@ describe('parseEml', () => {
 			'--outer--',
 			''
 		].join('\r\n');
-		const parsed = parseEml(raw);
-		expect(parsed.headers.get('subject')).toBe('nested');
+		const parsed = await parseEml(raw);
+		expect(parsed.subject).toBe('nested');
 		expect(parsed.text).toBe('Sweep at https://bandwright.test/s/1');
 		expect(parsed.html).toBe('<p><a href="https://bandwright.test/s/1?x=1&amp;y=2">sweep</a></p>');
 		expect(parsed.links).toEqual([
@@ -146,9 +150,9 @@ describe('parseEml', () => {
 		]);
 	});
 
-	it('unfolds folded headers (RFC 5322 §2.2.3)', () => {
-		const parsed = parseEml('Subject: a long\r\n  folded subject\r\nTo: x@y.test\r\n\r\nbody');
-		expect(parsed.headers.get('subject')).toBe('a long folded subject');
+	it('unfolds folded headers (RFC 5322 §2.2.3)', async () => {
+		const parsed = await parseEml('Subject: a long\r\n  folded subject\r\nTo: x@y.test\r\n\r\nbody');
+		expect(parsed.subject).toBe('a long folded subject');
 		expect(parsed.text).toBe('body');
 	});
 

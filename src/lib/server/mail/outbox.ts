@@ -1,6 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import { mkdir, readFile, readdir, rename, writeFile } from 'node:fs/promises';
 import path from 'node:path';
+import { simpleParser, type AddressObject } from 'mailparser';
 
 /** Outbox ids: basic-format ISO 8601 UTC time, then 64 random bits. Never user-controlled. */
 export const OUTBOX_ID = /^\d{8}T\d{6}\.\d{3}Z-[0-9a-f]{16}$/;
@@ -29,9 +30,15 @@ export interface OutboxMessage {
 }
 
 export interface ParsedEml {
-	headers: Map<string, string>;
-	text: string | null;
+	from: string;
+	to: string;
+	subject: string;
+	messageId: string | null;
+	date: Date | null;
+	/** The text part, or the HTML part as text when there is none (mailparser makes it). */
+	text: string;
 	html: string | null;
+	/** Distinct http(s) links in text and HTML, in order of appearance. */
 	links: string[];
 }
 
@@ -89,16 +96,14 @@ export async function readOutboxMessage(
 
 async function load(outboxDir: string, id: string): Promise<OutboxMessage | null> {
 	const file = path.join(outboxDir, `${id}.eml`);
-	let raw: string;
+	let raw: Buffer;
 	try {
-		raw = await readFile(file, 'utf8');
+		raw = await readFile(file);
 	} catch (e) {
 		if ((e as NodeJS.ErrnoException).code === 'ENOENT') return null;
 		throw e;
 	}
-	const eml = parseEml(raw);
-	const header = (name: string) => eml.headers.get(name) ?? '';
-	const dated = new Date(header('date'));
+	const eml = await parseEml(raw);
 	const idTime = id.replace(
 		/^(\d{4})(\d\d)(\d\d)T(\d\d)(\d\d)(\d\d)(\.\d{3}Z).*$/,
 		'$1-$2-$3T$4:$5:$6$7'
@@ -106,129 +111,34 @@ async function load(outboxDir: string, id: string): Promise<OutboxMessage | null
 	return {
 		id,
 		file,
-		from: header('from'),
-		to: header('to'),
-		subject: header('subject'),
-		date: Number.isNaN(dated.getTime()) ? idTime : dated.toISOString(),
-		text: eml.text ?? (eml.html === null ? '' : htmlToText(eml.html)),
+		from: eml.from,
+		to: eml.to,
+		subject: eml.subject,
+		date: eml.date ? eml.date.toISOString() : idTime,
+		text: eml.text,
 		html: eml.html,
 		links: eml.links
 	};
 }
 
-/** Parse an RFC 822 / MIME message: decoded headers, the first text and HTML parts, links. */
-export function parseEml(raw: string): ParsedEml {
-	const root = parseEntity(raw.replace(/\r\n/g, '\n'));
-	const found: { text: string | null; html: string | null } = { text: null, html: null };
-	collectParts(root, found);
-	const links = extractLinks([found.text ?? '', (found.html ?? '').replace(/&amp;/g, '&')]);
-	return { headers: root.headers, text: found.text, html: found.html, links };
-}
+const addresses = (a: AddressObject | AddressObject[] | undefined) =>
+	(Array.isArray(a) ? a : a ? [a] : []).map((x) => x.text).join(', ');
 
-interface Entity {
-	headers: Map<string, string>;
-	body: string;
-}
-
-function parseEntity(source: string): Entity {
-	const split = source.indexOf('\n\n');
-	const head = split === -1 ? source : source.slice(0, split);
-	const body = split === -1 ? '' : source.slice(split + 2);
-	const headers = new Map<string, string>();
-	for (const line of head.replace(/\n[ \t]+/g, ' ').split('\n')) {
-		const colon = line.indexOf(':');
-		if (colon <= 0) continue;
-		const name = line.slice(0, colon).trim().toLowerCase();
-		if (!headers.has(name)) headers.set(name, decodeEncodedWords(line.slice(colon + 1).trim()));
-	}
-	return { headers, body };
-}
-
-function collectParts(entity: Entity, found: { text: string | null; html: string | null }): void {
-	const { type, params } = parseContentType(entity.headers.get('content-type') ?? 'text/plain');
-	if (/^attachment/i.test(entity.headers.get('content-disposition') ?? '')) return;
-	if (type.startsWith('multipart/') && params.boundary) {
-		for (const part of splitMultipart(entity.body, params.boundary)) collectParts(part, found);
-		return;
-	}
-	if (type !== 'text/plain' && type !== 'text/html') return;
-	const cte = (entity.headers.get('content-transfer-encoding') ?? '7bit').toLowerCase();
-	const content = decodeBody(entity.body, cte, params.charset ?? 'utf-8');
-	if (type === 'text/plain' && found.text === null) found.text = content;
-	if (type === 'text/html' && found.html === null) found.html = content;
-}
-
-function parseContentType(value: string): { type: string; params: Record<string, string> } {
-	const [type, ...rest] = value.split(';');
-	const params: Record<string, string> = {};
-	for (const p of rest) {
-		const eq = p.indexOf('=');
-		if (eq === -1) continue;
-		const key = p.slice(0, eq).trim().toLowerCase();
-		params[key] = p
-			.slice(eq + 1)
-			.trim()
-			.replace(/^"(.*)"$/, '$1');
-	}
-	return { type: type.trim().toLowerCase(), params };
-}
-
-function splitMultipart(body: string, boundary: string): Entity[] {
-	// The line break before a delimiter belongs to the delimiter (RFC 2046 §5.1.1).
-	const segments = `\n${body}`.split(`\n--${boundary}`);
-	const parts: Entity[] = [];
-	for (const segment of segments.slice(1)) {
-		if (segment.startsWith('--')) break;
-		const lineEnd = segment.indexOf('\n');
-		if (lineEnd !== -1) parts.push(parseEntity(segment.slice(lineEnd + 1)));
-	}
-	return parts;
-}
-
-function decodeBody(body: string, cte: string, charset: string): string {
-	if (cte === 'quoted-printable') return decodeBytes(decodeQuotedPrintable(body), charset);
-	if (cte === 'base64')
-		return decodeBytes(Buffer.from(body.replace(/\s+/g, ''), 'base64'), charset);
-	return body;
-}
-
-/** RFC 2045 §6.7: `=XX` is a byte, `=` at a line end is a soft line break. */
-export function decodeQuotedPrintable(input: string): Uint8Array {
-	const text = input.replace(/[ \t]+$/gm, '').replace(/=\n/g, '');
-	const bytes: number[] = [];
-	for (let i = 0; i < text.length; i++) {
-		const hex = text.slice(i + 1, i + 3);
-		if (text[i] === '=' && /^[0-9A-Fa-f]{2}$/.test(hex)) {
-			bytes.push(parseInt(hex, 16));
-			i += 2;
-		} else {
-			bytes.push(...Buffer.from(text[i], 'utf8'));
-		}
-	}
-	return Uint8Array.from(bytes);
-}
-
-function decodeBytes(bytes: Uint8Array, charset: string): string {
-	try {
-		return new TextDecoder(charset).decode(bytes);
-	} catch {
-		return new TextDecoder('utf-8').decode(bytes);
-	}
-}
-
-const ENCODED_WORD = /=\?([^?\s]+)\?([bq])\?([^?\s]*)\?=/gi;
-
-/** RFC 2047 encoded words; white space between adjacent encoded words is dropped (§6.2). */
-export function decodeEncodedWords(value: string): string {
-	return value
-		.replace(/(\?=)\s+(?==\?)/g, '$1')
-		.replace(ENCODED_WORD, (_m, charset: string, enc: string, data: string) => {
-			const bytes =
-				enc.toLowerCase() === 'b'
-					? Buffer.from(data, 'base64')
-					: decodeQuotedPrintable(data.replace(/_/g, ' '));
-			return decodeBytes(bytes, charset);
-		});
+/** An RFC 822 / MIME message, read by mailparser: decoded headers, the text and HTML bodies, links. */
+export async function parseEml(raw: string | Buffer): Promise<ParsedEml> {
+	const m = await simpleParser(raw, { skipImageLinks: true, skipTextToHtml: true });
+	const html = m.html === false || m.html === undefined ? null : m.html;
+	const date = m.date && !Number.isNaN(m.date.getTime()) ? m.date : null;
+	return {
+		from: addresses(m.from),
+		to: addresses(m.to),
+		subject: m.subject ?? '',
+		messageId: m.messageId ?? null,
+		date,
+		text: m.text ?? '',
+		html,
+		links: extractLinks([m.text ?? '', (html ?? '').replace(/&amp;/g, '&')])
+	};
 }
 
 function extractLinks(sources: string[]): string[] {
@@ -240,17 +150,4 @@ function extractLinks(sources: string[]): string[] {
 		}
 	}
 	return links;
-}
-
-function htmlToText(html: string): string {
-	return html
-		.replace(/<(script|style)[\s\S]*?<\/\1>/gi, '')
-		.replace(/<[^>]*>/g, ' ')
-		.replace(/&nbsp;/g, ' ')
-		.replace(/&lt;/g, '<')
-		.replace(/&gt;/g, '>')
-		.replace(/&quot;/g, '"')
-		.replace(/&amp;/g, '&')
-		.replace(/[ \t]+/g, ' ')
-		.trim();
 }

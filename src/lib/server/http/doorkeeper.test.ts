@@ -1,18 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { Doorkeeper, Lru } from './lru';
-
-describe('Lru', () => {
-	it('drops the least recently used entry beyond its capacity', () => {
-		const lru = new Lru<string, number>(2);
-		lru.set('a', 1);
-		lru.set('b', 2);
-		expect(lru.get('a')).toBe(1); // a is now newer than b
-		lru.set('c', 3);
-		expect(lru.get('b')).toBeUndefined();
-		expect(lru.get('a')).toBe(1);
-		expect(lru.get('c')).toBe(3);
-	});
-});
+import { Doorkeeper } from './doorkeeper';
 
 describe('Doorkeeper', () => {
 	it('says a key was seen only from its second time on', () => {
