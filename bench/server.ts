@@ -1,7 +1,7 @@
 /** Helpers to run the built server and load generators on loopback only, bounded in time. */
 import { spawn, type ChildProcess } from 'node:child_process';
 
-export async function waitFor(url: string, timeoutMs = 30_000): Promise<void> {
+async function waitFor(url: string, timeoutMs = 30_000): Promise<void> {
 	const until = Date.now() + timeoutMs;
 	while (Date.now() < until) {
 		try {
@@ -40,7 +40,7 @@ export interface LoadResult {
 }
 
 /** A request in a load run's cycle: its path (with query) and, for POST, its body. */
-export interface Variant {
+interface Variant {
 	path?: string;
 	body?: string;
 }

@@ -11,7 +11,7 @@ export const DEMO = {
 	unverified: { email: 'newcomer@lanternhill.example', password: 'demo-member-2026' }
 };
 
-export const outboxDir = () => join(process.env.E2E_DATA_DIR!, 'outbox');
+const outboxDir = () => join(process.env.E2E_DATA_DIR!, 'outbox');
 
 /** Raw text of every captured mail to `to`, oldest first (quoted-printable soft breaks undone). */
 export function mailsTo(to: string): string[] {

@@ -20,7 +20,7 @@ export interface DesignFileError {
 export type DesignFileResult =
 	{ ok: true; value: DesignFile } | { ok: false; error: DesignFileError };
 
-export const DESIGN_FILE_VERSION = 1;
+const DESIGN_FILE_VERSION = 1;
 export const MAX_DESIGN_FILE_BYTES = 512 * 1024;
 
 const META_KEYS = Object.keys(designMetaSchema.shape);

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 
-export const EMAIL_MAX = 254;
-export const NAME_MAX = 60;
+const EMAIL_MAX = 254;
+const NAME_MAX = 60;
 
 const email = z
 	.string()

@@ -58,9 +58,9 @@ export const DESIGN_LIMITS = {
 	maxFrequencyHz: MAX_FREQUENCY_HZ
 } as const;
 
-export const KEY_PATTERN = /^[a-z_][a-z0-9_]{0,39}$/;
+const KEY_PATTERN = /^[a-z_][a-z0-9_]{0,39}$/;
 /** Names the formula evaluator defines itself; a parameter or row may not shadow them. */
-export const RESERVED_KEYS: readonly string[] = ['f', 'lambda', 'c', 'pi', 'e', 'i'];
+const RESERVED_KEYS: readonly string[] = ['f', 'lambda', 'c', 'pi', 'e', 'i'];
 
 /** "is required" for a missing field, otherwise what was expected. */
 const expected = (what: string) => ({
@@ -92,7 +92,7 @@ const validRatio = z
 	.tuple([finite.positive(), finite.positive()], { error: 'must be [low, high]' })
 	.refine(([lo, hi]) => lo < hi, { error: 'low must be below high' });
 
-export const parameterSchema = z.strictObject({
+const parameterSchema = z.strictObject({
 	key,
 	label: text(DESIGN_LIMITS.labelChars, 1),
 	value: finite,
@@ -100,7 +100,7 @@ export const parameterSchema = z.strictObject({
 	valid_ratio: validRatio.optional()
 });
 
-export const rowSchema = z.strictObject({
+const rowSchema = z.strictObject({
 	key,
 	label: text(DESIGN_LIMITS.labelChars, 1),
 	formula: text(DESIGN_LIMITS.formulaChars, 1),
@@ -118,7 +118,7 @@ const hz = finite
 	.positive({ error: 'must be above 0 Hz' })
 	.max(DESIGN_LIMITS.maxFrequencyHz, { error: 'must be at most 1 THz' });
 
-export const claimSchema = z
+const claimSchema = z
 	.strictObject({
 		centre_hz: hz,
 		band_lo_hz: hz,
@@ -185,6 +185,3 @@ export const revisionContentSchema = z
 
 export type DesignMeta = z.infer<typeof designMetaSchema>;
 export type RevisionContent = z.infer<typeof revisionContentSchema>;
-export type DesignParameter = z.infer<typeof parameterSchema>;
-export type DesignRow = z.infer<typeof rowSchema>;
-export type DesignClaim = z.infer<typeof claimSchema>;

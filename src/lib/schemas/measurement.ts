@@ -13,7 +13,7 @@ const INSTRUMENT_VALUES = INSTRUMENTS.map((i) => i.value) as [Instrument, ...Ins
 
 export const instrumentLabel = (v: string) => INSTRUMENTS.find((i) => i.value === v)?.label ?? v;
 
-export const MEASUREMENT_LIMITS = {
+const MEASUREMENT_LIMITS = {
 	referencePlaneChars: 200,
 	notesChars: 4000,
 	deviationsChars: 2000,
@@ -104,9 +104,8 @@ export const buildReportSchema = z.object({
 	deviations: text(MEASUREMENT_LIMITS.deviationsChars),
 	materials: text(MEASUREMENT_LIMITS.materialsChars)
 });
-export type BuildReportForm = z.infer<typeof buildReportSchema>;
 
-export const ATTACHMENT_KIND_VALUES = ['photo', 'sweep_image'] as const;
+const ATTACHMENT_KIND_VALUES = ['photo', 'sweep_image'] as const;
 
 export const photoFormSchema = z.object({
 	kind: z.enum(ATTACHMENT_KIND_VALUES, { error: 'must be photo or sweep_image' }).default('photo'),
@@ -116,7 +115,6 @@ export const photoFormSchema = z.object({
 		.optional()
 		.transform((v) => v === 'on' || v === 'true' || v === '1')
 });
-export type PhotoForm = z.infer<typeof photoFormSchema>;
 
 /** The first problem as "field: message", for a form's one-line error. */
 export function firstIssue(error: z.ZodError): { field: string; message: string } {

@@ -1,7 +1,7 @@
 /** Form schemas for peer review: verdicts, anchored comments, compare queries. */
 import { z } from 'zod';
 
-export const VERDICT_VALUES = ['approve', 'revise', 'reject'] as const;
+const VERDICT_VALUES = ['approve', 'revise', 'reject'] as const;
 export type VerdictValue = (typeof VERDICT_VALUES)[number];
 
 export const REVIEW_LIMITS = { commentChars: 20_000, summaryChars: 5_000 } as const;

@@ -31,7 +31,7 @@ export function pngHeaderOnly(width: number, height: number): Buffer {
 }
 
 /** An invented camera position for the GPS tags (a field near a fictional club). */
-export const FAKE_GPS = { latitude: '51/1 28/1 3000/100', longitude: '0/1 0/1 500/100' };
+const FAKE_GPS = { latitude: '51/1 28/1 3000/100', longitude: '0/1 0/1 500/100' };
 
 /** A JPEG of width × height with EXIF orientation, camera make and a GPS position. */
 export async function jpegWithGps(width: number, height: number, orientation = 1): Promise<Buffer> {

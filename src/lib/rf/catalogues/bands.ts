@@ -6,8 +6,8 @@
  */
 
 export type BandKind = 'ism' | 'amateur' | 'srd';
-export type BandRegion = 'R1' | 'R2' | 'R3' | 'R1+R3' | 'R2+R3' | 'EU' | 'national';
-export type SourceConfidence = 'C' | 'C2' | 'M';
+type BandRegion = 'R1' | 'R2' | 'R3' | 'R1+R3' | 'R2+R3' | 'EU' | 'national';
+type SourceConfidence = 'C' | 'C2' | 'M';
 
 export interface Band {
 	id: string;

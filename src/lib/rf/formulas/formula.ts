@@ -82,7 +82,7 @@ function parseUncached(text: string): ParseEntry {
 }
 
 /** Parsed AST for a formula text, from the LRU cache when seen before. */
-export function parseFormula(text: string): ParseEntry {
+function parseFormula(text: string): ParseEntry {
 	const hit = cache.get(text);
 	if (hit) return hit;
 	parses++;

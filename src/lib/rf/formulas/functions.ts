@@ -18,7 +18,7 @@ import {
 /** Thrown while evaluating (e.g. below waveguide cutoff); the table reports it on the row. */
 export class FormulaRuntimeError extends Error {}
 
-export interface ArgInfo {
+interface ArgInfo {
 	dims: Dims;
 	text: string;
 }

@@ -116,7 +116,7 @@ export interface AnalyzeResult {
 	};
 }
 
-export const SERIES_MAX_POINTS = 2000;
+const SERIES_MAX_POINTS = 2000;
 
 const finite = (x: number | null): number | null => (x !== null && Number.isFinite(x) ? x : null);
 

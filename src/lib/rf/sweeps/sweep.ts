@@ -11,8 +11,6 @@ import type {
 } from './types';
 import { CSV_QUANTITIES, FREQUENCY_UNITS } from './types';
 
-export { MAX_SWEEP_POINTS };
-
 // NUL and other C0 controls (tab, LF, VT, FF, CR allowed) or U+FFFD left by decoding non-UTF-8 bytes.
 const NON_TEXT = /[\u0000-\u0008\u000e-\u001f\ufffd]/;
 
@@ -90,7 +88,7 @@ export interface AnalyzeQuery {
 	freq_unit?: FrequencyUnit;
 }
 
-export type AnalyzeQueryField = keyof AnalyzeQuery;
+type AnalyzeQueryField = keyof AnalyzeQuery;
 export type AnalyzeQueryResult =
 	| { ok: true; value: AnalyzeQuery }
 	| { ok: false; error: { message: string; field: AnalyzeQueryField } };

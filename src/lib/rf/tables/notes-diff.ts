@@ -2,7 +2,7 @@
 import { diffLines, diffWordsWithSpace } from 'diff';
 import type { Change } from 'diff';
 
-export type NotesOp = 'equal' | 'insert' | 'delete';
+type NotesOp = 'equal' | 'insert' | 'delete';
 export interface NotesDiffPart {
 	op: NotesOp;
 	text: string;

@@ -1,6 +1,6 @@
 /** Row-by-row diff of two revisions' dimension tables, parameters and claims, matched by key. */
 
-export type RowKind = 'resonant' | 'structural' | 'material' | 'count';
+type RowKind = 'resonant' | 'structural' | 'material' | 'count';
 
 export interface DiffParameter {
 	key: string;
@@ -28,7 +28,7 @@ export interface TableSide {
 }
 
 /** Ordered by how much each matters to a builder; the first that applies is the primary change. */
-export const ROW_CHANGES = [
+const ROW_CHANGES = [
 	'added',
 	'removed',
 	'formula',
@@ -40,7 +40,7 @@ export const ROW_CHANGES = [
 	'label',
 	'moved'
 ] as const;
-export type RowChange = (typeof ROW_CHANGES)[number];
+type RowChange = (typeof ROW_CHANGES)[number];
 
 export interface RowDiff {
 	key: string;

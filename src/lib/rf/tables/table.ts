@@ -31,7 +31,7 @@ import {
 } from './types';
 
 export * from './types';
-export { compileTable, keyProblem, type CompiledTable } from './compile';
+export { compileTable, type CompiledTable } from './compile';
 
 const NUMBER = (v: number) => String(Number(v.toPrecision(6)));
 

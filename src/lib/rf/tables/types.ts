@@ -8,7 +8,7 @@ export type { Units } from '../units/length';
 
 export const ROW_KINDS = ['resonant', 'structural', 'material', 'count'] as const;
 
-export type RowKind = (typeof ROW_KINDS)[number];
+type RowKind = (typeof ROW_KINDS)[number];
 
 /**
  * The range of a dimension, as a fraction of a reference, over which the author measured the design:
@@ -51,7 +51,7 @@ export interface EvaluateOptions {
 	units?: Units;
 }
 
-export interface StockResult {
+interface StockResult {
 	catalogue: CatalogueId;
 	name: string;
 	value_mm: number;

@@ -3,7 +3,7 @@
 export type FrequencyParse = { ok: true; hz: number } | { ok: false; message: string };
 
 /** Below 1 kHz a bare number is almost always a forgotten unit, not a real antenna frequency. */
-export const MIN_FREQUENCY_HZ = 1e3;
+const MIN_FREQUENCY_HZ = 1e3;
 /** Above 1 THz the free-space wavelength is under 0.3 mm; no design here is meant for that. */
 export const MAX_FREQUENCY_HZ = 1e12;
 /** A measured sweep may run higher (instrument files), but not past this. */
@@ -11,7 +11,7 @@ export const MAX_SWEEP_FREQUENCY_HZ = 1e15;
 const MAX_INPUT_LENGTH = 64;
 
 /** The one table of Hz prefixes, largest first: its decimal exponent and its unit name. */
-export const HZ_PREFIXES = [
+const HZ_PREFIXES = [
 	{ unit: 'THz', exponent: 12 },
 	{ unit: 'GHz', exponent: 9 },
 	{ unit: 'MHz', exponent: 6 },

@@ -28,7 +28,7 @@ export interface ViewRevision {
 	claimHiHz: number | null;
 }
 
-export function parseUnits(value: string | null): Units {
+function parseUnits(value: string | null): Units {
 	return UNITS.includes(value as Units) ? (value as Units) : 'mm';
 }
 

@@ -5,12 +5,12 @@ import { hashSecret, invalidateUserSessions, randomSecret } from './auth';
 import { burnPasswordCheck, hashPassword, verifyPassword } from './password';
 import { constantTimeEqual } from '@oslojs/crypto/subtle';
 
-export const TOKEN_LIFETIME_MS: Record<TokenPurpose, number> = {
+const TOKEN_LIFETIME_MS: Record<TokenPurpose, number> = {
 	verify_email: 48 * 60 * 60 * 1000,
 	reset_password: 60 * 60 * 1000
 };
 
-export const normalizeEmail = (email: string) => email.trim().toLowerCase();
+const normalizeEmail = (email: string) => email.trim().toLowerCase();
 
 export function newId(): string {
 	return randomSecret();

@@ -4,8 +4,8 @@ import { COMMON_PASSWORDS } from './common-passwords';
 // argon2id (algorithm 2) with explicit cost: ASVS 5.0 appendix C minimum for t=2 is m=19456 KiB, p=1.
 const ARGON2_OPTIONS = { algorithm: 2, memoryCost: 19456, timeCost: 2, parallelism: 1 } as const;
 
-export const PASSWORD_MIN = 8;
-export const PASSWORD_MAX = 128;
+const PASSWORD_MIN = 8;
+const PASSWORD_MAX = 128;
 
 export function hashPassword(password: string): Promise<string> {
 	return hash(password.normalize('NFC'), ARGON2_OPTIONS);

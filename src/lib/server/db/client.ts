@@ -5,7 +5,6 @@ import { mkdirSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import * as schema from './schema';
 
-export type DB = ReturnType<typeof openDatabase>['db'];
 
 /**
  * Opens the SQLite file with our pragmas. WAL with synchronous=NORMAL: every commit is

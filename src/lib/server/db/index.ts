@@ -7,4 +7,3 @@ const opened = openDatabase(env.DATABASE_URL || DEFAULT_DATABASE_URL);
 
 export const db = opened.db;
 export const sqlite = opened.sqlite;
-export type { DB } from './client';

@@ -57,8 +57,8 @@ export class BuildSheetError extends Error {
 	}
 }
 
-export const PAPER_SIZES = { a4: [595.28, 841.89], letter: [612, 792] } as const;
-export const CALIBRATION_TEXT =
+const PAPER_SIZES = { a4: [595.28, 841.89], letter: [612, 792] } as const;
+const CALIBRATION_TEXT =
 	'Print at 100 % (no fit-to-page). Check: this bar must measure 50.0 mm.';
 const MARGIN = 36;
 const FOOTER = 24;

@@ -4,9 +4,9 @@ import type { RevisionContent } from '$lib/schemas/design';
 import type { Revision } from '../db/schema';
 import { DomainError } from '../http/errors';
 
-export type StoredContent = Omit<RevisionContent, 'notes' | 'change_note'>;
+type StoredContent = Omit<RevisionContent, 'notes' | 'change_note'>;
 
-export function splitContent(content: RevisionContent) {
+function splitContent(content: RevisionContent) {
 	const { notes, change_note, ...rest } = content;
 	return { notes, changeNote: change_note, stored: rest as StoredContent };
 }

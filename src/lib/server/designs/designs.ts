@@ -11,12 +11,12 @@ import type { SessionUser } from '../accounts/auth';
 
 const RESERVED_SLUGS = ['new', 'compare', 'api', 'edit'];
 
-export function slugTaken(slug: string): boolean {
+function slugTaken(slug: string): boolean {
 	return !!db.select({ id: designs.id }).from(designs).where(eq(designs.slug, slug)).get();
 }
 
 /** A free slug near the wanted one ("biquad", "biquad-2", …) for suggestions. */
-export function freeSlug(wanted: string): string {
+function freeSlug(wanted: string): string {
 	const base = slugify(wanted);
 	if (!slugTaken(base)) return base;
 	for (let i = 2; i < 1000; i++) if (!slugTaken(`${base}-${i}`)) return `${base}-${i}`;

@@ -4,7 +4,7 @@ import type { Design, Revision } from '../db/schema';
 import { contentOf } from './content';
 import { renderBuildSheet } from './build-sheet';
 
-export const BUILD_SHEET_CAUTIONS = [
+const BUILD_SHEET_CAUTIONS = [
 	'RF exposure: keep people away from a transmitting antenna; follow your regulator\'s exposure limits.',
 	'A high-gain antenna can push a legal transmitter over the EIRP limit; amateur bands need a licence.',
 	'Workshop: solder fumes and burns, sharp sheet and tin edges (wear gloves), clamp work and wear eye protection when drilling.',

@@ -25,7 +25,7 @@ export function reindexDesign(designId: string): void {
 }
 
 /** The words of a person's query (at most 12), as the index tokenizer splits them. */
-export function queryWords(q: string): string[] {
+function queryWords(q: string): string[] {
 	return q
 		.normalize('NFKC')
 		.split(/[^\p{L}\p{N}_]+/u)

@@ -13,5 +13,3 @@ export class DomainError extends Error {
 		return this.field ? { message: this.message, field: this.field } : { message: this.message };
 	}
 }
-
-export const notFound = (what = 'That page') => new DomainError(404, `${what} does not exist.`);

@@ -6,7 +6,6 @@ import { SMTPServer, type SMTPServerSession } from 'smtp-server';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import {
 	createMailer,
-	createMailQueue,
 	MailInputError,
 	type MailLogger,
 	type MailMessage
@@ -161,83 +160,5 @@ describe('SMTP mailer', () => {
 		} finally {
 			await new Promise<void>((resolve) => server.close(() => resolve()));
 		}
-	});
-});
-
-describe('mail queue', () => {
-	const msg: MailMessage = { to: 'ana@example.org', subject: 'Review requested', text: 'x' };
-
-	function flakyMailer(failures: number) {
-		const calls: MailMessage[] = [];
-		return {
-			calls,
-			async send(m: MailMessage) {
-				calls.push(m);
-				if (calls.length <= failures) throw new Error(`SMTP 451 try again (${calls.length})`);
-				return { id: `ok-${calls.length}` };
-			}
-		};
-	}
-
-	it('sends after the current tick, not inside enqueue', async () => {
-		const mailer = flakyMailer(0);
-		const queue = createMailQueue(mailer, { logger: recordingLogger().logger });
-		queue.enqueue(msg);
-		expect(mailer.calls).toHaveLength(0);
-		expect(queue.pending).toBe(1);
-		await queue.drain();
-		expect(mailer.calls).toEqual([msg]);
-		expect(queue.pending).toBe(0);
-	});
-
-	it('retries with doubling backoff and succeeds on the third attempt', async () => {
-		const mailer = flakyMailer(2);
-		const { lines, logger } = recordingLogger();
-		const delays: number[] = [];
-		const sleep = async (ms: number) => void delays.push(ms);
-		const queue = createMailQueue(mailer, { retries: 3, backoffMs: 50, logger, sleep });
-		queue.enqueue(msg);
-		await queue.drain();
-		expect(mailer.calls).toHaveLength(3);
-		expect(delays).toEqual([50, 100]);
-		expect(lines.map((l) => l.level)).toEqual(['warn', 'warn']);
-	});
-
-	it('gives up after 1 + retries attempts and logs one error', async () => {
-		const mailer = flakyMailer(Infinity);
-		const { lines, logger } = recordingLogger();
-		const queue = createMailQueue(mailer, { retries: 2, backoffMs: 1, logger });
-		expect(() => queue.enqueue(msg)).not.toThrow();
-		await queue.drain();
-		expect(mailer.calls).toHaveLength(3);
-		const errors = lines.filter((l) => l.level === 'error');
-		expect(errors).toHaveLength(1);
-		expect(errors[0].meta).toMatchObject({ attempts: 3, subject: 'Review requested' });
-		expect(errors[0].meta?.error).toBe('SMTP 451 try again (3)');
-	});
-
-	it('does not retry a message the mailer rejects as invalid', async () => {
-		const { lines, logger } = recordingLogger();
-		const mailer = createMailer({ from: FROM, outboxDir: dir, logger: recordingLogger().logger });
-		const queue = createMailQueue(mailer, { retries: 3, backoffMs: 1, logger });
-		queue.enqueue({ ...msg, subject: 'a\nBcc: b@example.org' });
-		await queue.drain();
-		expect(lines.map((l) => [l.level, l.meta?.attempts])).toEqual([['error', 1]]);
-		await expect(readdir(dir)).resolves.toEqual([]);
-	});
-
-	it('survives a mailer that throws synchronously and drains many messages', async () => {
-		let calls = 0;
-		const mailer = {
-			send(): Promise<{ id: string }> {
-				calls++;
-				throw new Error('boom');
-			}
-		};
-		const { logger } = recordingLogger();
-		const queue = createMailQueue(mailer, { retries: 0, logger });
-		for (let i = 0; i < 5; i++) queue.enqueue(msg);
-		await queue.drain();
-		expect(calls).toBe(5);
 	});
 });

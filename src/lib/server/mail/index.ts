@@ -69,7 +69,7 @@ function checkAddress(field: 'from' | 'to', value: unknown): string {
 }
 
 /** Validate a message; throws MailInputError naming the first bad field. */
-export function checkMessage(msg: MailMessage): MailMessage {
+function checkMessage(msg: MailMessage): MailMessage {
 	if (msg === null || typeof msg !== 'object') throw new MailInputError('to', 'is missing');
 	const to = checkAddress('to', msg.to);
 	const subject = checkHeader('subject', msg.subject, 200);
@@ -109,66 +109,6 @@ export function createMailer(config: MailerConfig): Mailer {
 			const { id, file } = await writeOutboxMessage(config.outboxDir, info.message as Buffer);
 			logger.info('mail written to outbox', { id, file, subject: m.subject });
 			return { id };
-		}
-	};
-}
-
-export interface MailQueueOptions {
-	/** Attempts after the first one; 3 means at most 4 sends. */
-	retries?: number;
-	/** Delay before the first retry; doubles for each further retry. */
-	backoffMs?: number;
-	logger?: MailLogger;
-	/** Replaceable for tests. */
-	sleep?: (ms: number) => Promise<void>;
-}
-
-export interface MailQueue {
-	/** Send after the current tick, retrying failures; never throws. */
-	enqueue(msg: MailMessage): void;
-	/** Resolves when every enqueued message has been sent or given up. */
-	drain(): Promise<void>;
-	readonly pending: number;
-}
-
-export function createMailQueue(
-	mailer: Pick<Mailer, 'send'>,
-	{ retries = 3, backoffMs = 1000, logger = consoleLogger, sleep }: MailQueueOptions = {}
-): MailQueue {
-	const wait = sleep ?? ((ms: number) => new Promise<void>((r) => setTimeout(r, ms)));
-	const jobs = new Set<Promise<void>>();
-
-	async function run(msg: MailMessage): Promise<void> {
-		await new Promise<void>((r) => setImmediate(r));
-		const subject = typeof msg?.subject === 'string' ? msg.subject : '';
-		for (let attempt = 1; ; attempt++) {
-			try {
-				await mailer.send(msg);
-				return;
-			} catch (e) {
-				const error = e instanceof Error ? e.message : String(e);
-				// A bad message stays bad; retrying it only repeats the error.
-				if (e instanceof MailInputError || attempt > retries) {
-					logger.error('mail not sent; giving up', { subject, attempts: attempt, error });
-					return;
-				}
-				logger.warn('mail send failed; will retry', { subject, attempt, error });
-				await wait(backoffMs * 2 ** (attempt - 1));
-			}
-		}
-	}
-
-	return {
-		enqueue(msg) {
-			const job = run(msg).catch(() => undefined);
-			jobs.add(job);
-			void job.finally(() => jobs.delete(job));
-		},
-		async drain() {
-			while (jobs.size > 0) await Promise.all([...jobs]);
-		},
-		get pending() {
-			return jobs.size;
 		}
 	};
 }

@@ -15,7 +15,7 @@ export const headerSafe = (s: string) => s.replace(/[\r\n\u2028\u2029]+/g, ' ').
 
 const VERDICT_WORDS = { approve: 'approved', revise: 'returned for revision', reject: 'proposed to reject' };
 
-export const reviewLink = (slug: string, n: number, hash = '') =>
+const reviewLink = (slug: string, n: number, hash = '') =>
 	`${publicOrigin()}/review/${slug}/${n}${hash}`;
 
 export interface NotificationSettings {
@@ -49,7 +49,7 @@ export function setNotificationSettings(userId: string, settings: NotificationSe
 }
 
 /** Reviewers who opted in and follow the family (following none means every family). */
-export function submitRecipients(family: string, authorId: string, tx: Reader = db) {
+function submitRecipients(family: string, authorId: string, tx: Reader = db) {
 	return tx
 		.select({ id: users.id, email: users.email, followed: users.followedFamilies })
 		.from(users)

@@ -39,7 +39,7 @@ export function queueMail(
 }
 
 let delivering = false;
-export async function deliverQueued(now = Date.now()): Promise<number> {
+async function deliverQueued(now = Date.now()): Promise<number> {
 	if (delivering) return 0;
 	delivering = true;
 	let sent = 0;

@@ -16,7 +16,7 @@ export const MAX_IMAGE_BYTES = 15 * 1024 * 1024;
 export const MAX_IMAGE_PIXELS = 50_000_000;
 export const DISPLAY_MAX_PX = 1600;
 export const THUMB_MAX_PX = 320;
-export const DISPLAY_TYPE = 'image/webp';
+const DISPLAY_TYPE = 'image/webp';
 
 export interface ProcessedImage {
 	type: ImageType;

@@ -28,10 +28,10 @@ import {
 } from './uploads';
 
 export const MAX_SWEEP_BYTES = 10 * 1024 * 1024;
-export const SWEEP_CONTENT_TYPE = 'text/plain; charset=utf-8';
+const SWEEP_CONTENT_TYPE = 'text/plain; charset=utf-8';
 
 /** The sweep's text, or an UploadError saying what the bytes are instead. */
-export function sweepText(bytes: Uint8Array): string {
+function sweepText(bytes: Uint8Array): string {
 	if (bytes.byteLength > MAX_SWEEP_BYTES)
 		throw tooLarge(bytes.byteLength, MAX_SWEEP_BYTES, 'a sweep');
 	const kind = sniff(bytes);
@@ -54,7 +54,7 @@ export function sweepText(bytes: Uint8Array): string {
 }
 
 /** Parses bytes as a sweep with the query's options; failures are located UploadErrors (422, or 400 for a bad option). */
-export function parseSweepBytes(
+function parseSweepBytes(
 	bytes: Uint8Array,
 	q: Omit<AnalyzeQuery, 'design_hz' | 'band_lo_hz' | 'band_hi_hz' | 'vswr_max'>
 ): Sweep {
@@ -96,7 +96,7 @@ export function analyzeBytes(bytes: Uint8Array, q: AnalyzeQuery): AnalyzeResult 
 	return analyzeSweep(sweep, options);
 }
 
-export interface ClaimUsed {
+interface ClaimUsed {
 	band_lo_hz: number;
 	band_hi_hz: number;
 	vswr_max: number;
@@ -105,7 +105,7 @@ export interface ClaimUsed {
 }
 
 /** The revision's claim, moved proportionally to the target frequency of a build at another band. */
-export function claimFor(r: Revision, targetHz: number | null): ClaimUsed & { design_hz: number } {
+function claimFor(r: Revision, targetHz: number | null): ClaimUsed & { design_hz: number } {
 	const claim = contentOf(r).claim;
 	const k = targetHz && targetHz !== r.designHz ? targetHz / r.designHz : 1;
 	return {
@@ -270,4 +270,3 @@ export function measurementSeries(m: MeasurementRow, uploader: string) {
 }
 
 export type MeasurementSeries = ReturnType<typeof measurementSeries>;
-export type { MeasurementForm };

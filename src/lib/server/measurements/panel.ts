@@ -14,7 +14,7 @@ import {
 import { uploadAccess, type UploadKind } from './uploads';
 
 /** One sweep as the design page lists it (no series: the client fetches those). */
-export function measurementSummary(
+function measurementSummary(
 	m: Omit<MeasurementRow, 'metrics'>,
 	uploader: string,
 	r: Pick<Revision, 'state'>
@@ -51,7 +51,6 @@ export function measurementSummary(
 	};
 }
 
-export type MeasurementSummary = ReturnType<typeof measurementSummary>;
 
 export interface PassCount {
 	total: number;
@@ -71,7 +70,7 @@ const designCounts = db
 	.prepare();
 
 /** Author's measurements and build reports over every revision of the design the reader can see. */
-export function designMeasurementCounts(designId: string, user: SessionUser | null) {
+function designMeasurementCounts(designId: string, user: SessionUser | null) {
 	const rows = designCounts.all({ designId }).filter((x) => x.state !== 'draft' || x.authorId === user?.id);
 	const count = (kind: UploadKind): PassCount => {
 		const of = rows.filter((x) => x.kind === kind);

@@ -14,7 +14,7 @@ export interface Sniffed {
 	kind: 'image' | 'text' | 'archive' | 'document' | 'binary' | 'empty';
 }
 
-export const ACCEPTED_IMAGES: readonly ImageType[] = ['image/jpeg', 'image/png', 'image/webp'];
+const ACCEPTED_IMAGES: readonly ImageType[] = ['image/jpeg', 'image/png', 'image/webp'];
 
 const ascii = (b: Uint8Array, at: number, s: string) => {
 	if (b.length < at + s.length) return false;

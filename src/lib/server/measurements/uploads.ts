@@ -61,7 +61,7 @@ export function assertUploadAccess(user: SessionUser | null, r: Revision): Uploa
 	return access.kind;
 }
 
-export const megabytes = (n: number) => `${(n / (1024 * 1024)).toFixed(1)} MB`;
+const megabytes = (n: number) => `${(n / (1024 * 1024)).toFixed(1)} MB`;
 
 export function tooLarge(size: number, max: number, what: string): UploadError {
 	return new UploadError(

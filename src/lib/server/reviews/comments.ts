@@ -137,7 +137,7 @@ export function setResolved(user: SessionUser, commentId: string, resolved: bool
 	});
 }
 
-export interface CommentView {
+interface CommentView {
 	id: string;
 	authorName: string;
 	isAuthorOfRevision: boolean;

@@ -57,7 +57,7 @@ export function mainBand(bands: unknown, fMin: number | null): [number, number] 
 }
 
 /** Reads the stored AnalyzeResult defensively: it comes from another module's uploads. */
-export function summarizeSweep(row: { id: string; createdAt: Date; analysis: Record<string, unknown> }): SweepSummary {
+function summarizeSweep(row: { id: string; createdAt: Date; analysis: Record<string, unknown> }): SweepSummary {
 	const fMin = num(row.analysis?.f_min_vswr_hz);
 	return {
 		measurementId: row.id,
@@ -67,7 +67,7 @@ export function summarizeSweep(row: { id: string; createdAt: Date; analysis: Rec
 	};
 }
 
-export function newestSweep(revisionId: string): SweepSummary | null {
+function newestSweep(revisionId: string): SweepSummary | null {
 	const row = db
 		.select({ id: measurements.id, createdAt: measurements.createdAt, analysis: measurements.analysis })
 		.from(measurements)
@@ -100,7 +100,7 @@ function sideOf(r: Revision): TableSide {
 }
 
 /** Exact lengths in mm of rows that computed; counts and errors give no value. */
-export function valuesOf(result: TableResult): Record<string, number | null> {
+function valuesOf(result: TableResult): Record<string, number | null> {
 	return Object.fromEntries(
 		result.rows.map((row) => [row.key, row.error || row.value_mm === undefined ? null : row.value_mm])
 	);

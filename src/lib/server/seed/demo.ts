@@ -8,7 +8,7 @@ import { seedDesigns } from './designs';
 import { seedReviews } from './reviews';
 import { resolve } from 'node:path';
 
-export const DEMO_ACCOUNTS: { email: string; displayName: string; password: string; role: Role; verified: boolean }[] = [
+const DEMO_ACCOUNTS: { email: string; displayName: string; password: string; role: Role; verified: boolean }[] = [
 	{ email: 'wren@lanternhill.example', displayName: 'Wren Okafor (demo)', password: 'demo-moderator-2026', role: 'moderator', verified: true },
 	{ email: 'tomas@lanternhill.example', displayName: 'Tomas Varga (demo)', password: 'demo-reviewer-2026', role: 'reviewer', verified: true },
 	{ email: 'ines@lanternhill.example', displayName: 'Ines Halvorsen (demo)', password: 'demo-reviewer-2026', role: 'reviewer', verified: true },

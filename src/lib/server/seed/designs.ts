@@ -19,7 +19,7 @@ const DEMO_OWNERS: Record<string, string> = {
 };
 const DEFAULT_OWNER = 'priya@lanternhill.example';
 
-export function demoDesignFiles(dir: string) {
+function demoDesignFiles(dir: string) {
 	return readdirSync(dir)
 		.map((name) => /^([a-z0-9-]+)\.r(\d+)\.md$/.exec(name))
 		.filter((m): m is RegExpExecArray => m !== null)
