@@ -9,7 +9,9 @@ const config = {
 	compilerOptions: {
 		// mdsvex emits legacy `$$props`; everything else runs in runes mode.
 		runes: ({ filename }) =>
-			filename.endsWith('.md') || filename.split(/[/\\]/).includes('node_modules') ? undefined : true
+			filename.endsWith('.md') || filename.split(/[/\\]/).includes('node_modules')
+				? undefined
+				: true
 	},
 	kit: {
 		// BUILD_DIR / KIT_OUT_DIR let parallel work build side by side; defaults are SvelteKit's own.

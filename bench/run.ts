@@ -29,10 +29,22 @@ function benchContent(): RevisionContent {
 	};
 	return {
 		design_frequency_hz: 2.45e9,
-		parameters: BENCH_TABLE.parameters.map((p) => ({ key: p.key, label: p.key, ...unitOf(p.value) })),
-		rows: BENCH_TABLE.rows.map((r) => ({ key: r.key, label: r.label ?? r.key, formula: r.formula, kind: r.kind, ...(r.catalogue ? { catalogue: r.catalogue } : {}) })),
+		parameters: BENCH_TABLE.parameters.map((p) => ({
+			key: p.key,
+			label: p.key,
+			...unitOf(p.value)
+		})),
+		rows: BENCH_TABLE.rows.map((r) => ({
+			key: r.key,
+			label: r.label ?? r.key,
+			formula: r.formula,
+			kind: r.kind,
+			...(r.catalogue ? { catalogue: r.catalogue } : {})
+		})),
 		claim: { centre_hz: 2.45e9, band_lo_hz: 2.4e9, band_hi_hz: 2.5e9, vswr_max: 2 },
-		notes: 'Benchmark design (generated, not a real design).\n\n' + 'Cut, bend, solder and measure. '.repeat(200),
+		notes:
+			'Benchmark design (generated, not a real design).\n\n' +
+			'Cut, bend, solder and measure. '.repeat(200),
 		change_note: 'bench'
 	};
 }
@@ -65,7 +77,17 @@ async function main() {
 	const { benchSearch } = await import('./search');
 	await seedDemo(() => {});
 	const owner = toSessionUser(findUserByEmail('priya@lanternhill.example')!);
-	const bench = createDesign(owner, { title: 'Bench forty-row design', slug: 'bench-forty', family: 'biquad', polarization: 'linear', summary: 'generated' }, benchContent());
+	const bench = createDesign(
+		owner,
+		{
+			title: 'Bench forty-row design',
+			slug: 'bench-forty',
+			family: 'biquad',
+			polarization: 'linear',
+			summary: 'generated'
+		},
+		benchContent()
+	);
 	submitRevision(owner, bench.revisionId);
 
 	if (wanted('http')) await benchHttp();
@@ -81,7 +103,12 @@ async function benchHttp() {
 	const bare = await startBareServer(PORT + 1);
 	const bareR = await load(`http://127.0.0.1:${PORT + 1}/`, SECONDS);
 	bare.kill();
-	const server = await startBuiltServer(PORT, { DATABASE_URL: process.env.DATABASE_URL!, DATA_DIR: dataDir, RATE_LIMIT_FACTOR: '1000000', BENCH_ROUTES: '1' });
+	const server = await startBuiltServer(PORT, {
+		DATABASE_URL: process.env.DATABASE_URL!,
+		DATA_DIR: dataDir,
+		RATE_LIMIT_FACTOR: '1000000',
+		BENCH_ROUTES: '1'
+	});
 	try {
 		const u = (p: string) => `http://127.0.0.1:${PORT}${p}`;
 		const healthFirst = await load(u('/api/v1/health'), SECONDS);
@@ -94,22 +121,44 @@ async function benchHttp() {
 		// f: a number, or "{f}" where the load worker puts a new frequency into each request.
 		const table = JSON.stringify({ parameters: BENCH_TABLE.parameters, rows: BENCH_TABLE.rows });
 		const evalBody = (f: number | string) => `{"frequency_hz":${f},${table.slice(1)}`;
-		const dimsPath = (f: number | string) => `/api/v1/designs/bench-forty/revisions/1/dimensions?f=${f}`;
+		const dimsPath = (f: number | string) =>
+			`/api/v1/designs/bench-forty/revisions/1/dimensions?f=${f}`;
 		const pagePath = (f: number | string) => `/designs/bench-forty?f=${f}`;
-		const evaluate = await load(u('/api/v1/evaluate'), SECONDS, { method: 'POST', variants: fs.map((f) => ({ body: evalBody(f) })) });
+		const evaluate = await load(u('/api/v1/evaluate'), SECONDS, {
+			method: 'POST',
+			variants: fs.map((f) => ({ body: evalBody(f) }))
+		});
 		// The floor under the evaluate API: the same rate limit and 3 kB body read and parsed, nothing computed.
-		const postFloor = await load(u('/dev/bench/post-floor'), SECONDS, { method: 'POST', variants: fs.map((f) => ({ body: evalBody(f) })) });
-		const evaluateFresh = await load(u('/api/v1/evaluate'), SECONDS, { method: 'POST', fresh: { body: evalBody('{f}') } });
-		const dims = await load(u(dimsPath(2.45e9)), SECONDS, { variants: fs.map((f) => ({ path: dimsPath(f) })) });
-		const dimsFresh = await load(u(dimsPath(2.45e9)), SECONDS, { fresh: { path: dimsPath('{f}') } });
-		const pageR = await load(u(pagePath(2.45e9)), SECONDS, { variants: fs.map((f) => ({ path: pagePath(f) })) });
-		const pageFresh = await load(u(pagePath(2.45e9)), SECONDS, { fresh: { path: pagePath('{f}') } });
+		const postFloor = await load(u('/dev/bench/post-floor'), SECONDS, {
+			method: 'POST',
+			variants: fs.map((f) => ({ body: evalBody(f) }))
+		});
+		const evaluateFresh = await load(u('/api/v1/evaluate'), SECONDS, {
+			method: 'POST',
+			fresh: { body: evalBody('{f}') }
+		});
+		const dims = await load(u(dimsPath(2.45e9)), SECONDS, {
+			variants: fs.map((f) => ({ path: dimsPath(f) }))
+		});
+		const dimsFresh = await load(u(dimsPath(2.45e9)), SECONDS, {
+			fresh: { path: dimsPath('{f}') }
+		});
+		const pageR = await load(u(pagePath(2.45e9)), SECONDS, {
+			variants: fs.map((f) => ({ path: pagePath(f) }))
+		});
+		const pageFresh = await load(u(pagePath(2.45e9)), SECONDS, {
+			fresh: { path: pagePath('{f}') }
+		});
 		// Health again at the end: ratios use the mean of both runs, so drift during the run cancels.
 		const healthLast = await load(u('/api/v1/health'), SECONDS);
 		const health = { rps: (healthFirst.rps + healthLast.rps) / 2 };
-		const of = (r: { rps: number }, target?: string) => `${r.rps.toFixed(0)}  = ${ratio(r.rps, health.rps)} of health${target ? ` (target ≥ ${target})` : ''}`;
+		const of = (r: { rps: number }, target?: string) =>
+			`${r.rps.toFixed(0)}  = ${ratio(r.rps, health.rps)} of health${target ? ` (target ≥ ${target})` : ''}`;
 		line('bare node:http (machine ceiling) req/s', bareR.rps.toFixed(0));
-		line('trivial SvelteKit JSON route /api/v1/health req/s', `${health.rps.toFixed(0)}  (first ${healthFirst.rps.toFixed(0)}, last ${healthLast.rps.toFixed(0)}, p50 ${healthFirst.p50} ms)`);
+		line(
+			'trivial SvelteKit JSON route /api/v1/health req/s',
+			`${health.rps.toFixed(0)}  (first ${healthFirst.rps.toFixed(0)}, last ${healthLast.rps.toFixed(0)}, p50 ${healthFirst.p50} ms)`
+		);
 		line('home page SSR (the framework floor for a page) req/s', `${of(home)} (context)`);
 		line('POST floor: rate limit + read and parse the same body', `${of(postFloor)} (context)`);
 		line('POST /api/v1/evaluate, 40 rows, 64 frequencies, req/s', of(evaluate, '50 %'));
@@ -118,8 +167,20 @@ async function benchHttp() {
 		line('  … a new frequency every request (computed each time)', of(dimsFresh));
 		line('design page, no session, 64 frequencies, req/s', of(pageR, '25 %'));
 		line('  … a new frequency every request (SSR each time)', of(pageFresh));
-		for (const [name, r] of Object.entries({ healthFirst, healthLast, home, postFloor, evaluate, evaluateFresh, dims, dimsFresh, page: pageR, pageFresh })) {
-			if (r.errors || r.non2xx) console.log(`  warning: ${name} had ${r.errors} errors and ${r.non2xx} non-2xx answers`);
+		for (const [name, r] of Object.entries({
+			healthFirst,
+			healthLast,
+			home,
+			postFloor,
+			evaluate,
+			evaluateFresh,
+			dims,
+			dimsFresh,
+			page: pageR,
+			pageFresh
+		})) {
+			if (r.errors || r.non2xx)
+				console.log(`  warning: ${name} had ${r.errors} errors and ${r.non2xx} non-2xx answers`);
 		}
 	} finally {
 		server.kill();

@@ -5,7 +5,28 @@ import { submitRevision } from '../src/lib/server/designs/revisions';
 import { searchDesigns } from '../src/lib/server/designs/search';
 import type { SessionUser } from '../src/lib/server/accounts/auth';
 
-const WORDS = ['copper', 'reflector', 'tinplate', 'balun', 'coax', 'washer', 'standoff', 'helix', 'patch', 'dipole', 'radial', 'feed', 'probe', 'solder', 'epoxy', 'laminate', 'sleeve', 'choke', 'mast', 'clamp'];
+const WORDS = [
+	'copper',
+	'reflector',
+	'tinplate',
+	'balun',
+	'coax',
+	'washer',
+	'standoff',
+	'helix',
+	'patch',
+	'dipole',
+	'radial',
+	'feed',
+	'probe',
+	'solder',
+	'epoxy',
+	'laminate',
+	'sleeve',
+	'choke',
+	'mast',
+	'clamp'
+];
 const FAMILIES = ['biquad', 'patch', 'helical', 'dipole', 'ground_plane', 'yagi_uda'] as const;
 
 function median(xs: number[]) {
@@ -13,17 +34,28 @@ function median(xs: number[]) {
 	return s[Math.floor(s.length / 2)];
 }
 
-export async function benchSearch(owner: SessionUser, count = 10_000): Promise<Record<string, number>> {
+export async function benchSearch(
+	owner: SessionUser,
+	count = 10_000
+): Promise<Record<string, number>> {
 	let seed = 7;
-	const rnd = () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
+	const rnd = () => (seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
 	const t0 = performance.now();
 	sqlite.exec('BEGIN');
 	for (let i = 0; i < count; i++) {
 		const hz = [144e6, 435e6, 868e6, 1.3e9, 2.45e9, 5.8e9][i % 6];
-		const notes = Array.from({ length: 60 }, () => WORDS[Math.floor(rnd() * WORDS.length)]).join(' ');
+		const notes = Array.from({ length: 60 }, () => WORDS[Math.floor(rnd() * WORDS.length)]).join(
+			' '
+		);
 		const { revisionId } = createDesign(
 			owner,
-			{ title: `Generated design ${i} ${WORDS[i % WORDS.length]}`, slug: `gen-${i}`, family: FAMILIES[i % FAMILIES.length], polarization: 'linear', summary: `generated ${WORDS[(i * 7) % WORDS.length]}` },
+			{
+				title: `Generated design ${i} ${WORDS[i % WORDS.length]}`,
+				slug: `gen-${i}`,
+				family: FAMILIES[i % FAMILIES.length],
+				polarization: 'linear',
+				summary: `generated ${WORDS[(i * 7) % WORDS.length]}`
+			},
 			{ ...starterContent(hz), notes }
 		);
 		submitRevision(owner, revisionId);
@@ -46,5 +78,10 @@ export async function benchSearch(owner: SessionUser, count = 10_000): Promise<R
 			times.push(performance.now() - t);
 		}
 	}
-	return { 'designs generated (count)': count, 'generate + index (s)': loadMs / 1000, 'search median (ms, target ≤ 20)': median(times), 'search worst (ms)': Math.max(...times) };
+	return {
+		'designs generated (count)': count,
+		'generate + index (s)': loadMs / 1000,
+		'search median (ms, target ≤ 20)': median(times),
+		'search worst (ms)': Math.max(...times)
+	};
 }

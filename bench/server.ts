@@ -14,7 +14,10 @@ async function waitFor(url: string, timeoutMs = 30_000): Promise<void> {
 	throw new Error(`${url} did not come up`);
 }
 
-export async function startBuiltServer(port: number, env: Record<string, string>): Promise<ChildProcess> {
+export async function startBuiltServer(
+	port: number,
+	env: Record<string, string>
+): Promise<ChildProcess> {
 	const child = spawn(process.execPath, [process.env.BUILD_DIR || 'build'], {
 		env: { ...process.env, ...env, PORT: String(port), ORIGIN: `http://127.0.0.1:${port}` },
 		stdio: ['ignore', 'ignore', 'inherit']
@@ -62,9 +65,15 @@ export interface LoadOptions {
  * a process of its own (bench/load-worker.ts), so the bench's own heap and collections do not
  * slow the load generator between one measurement and the next.
  */
-export async function load(url: string, seconds: number, opts: LoadOptions = {}): Promise<LoadResult> {
+export async function load(
+	url: string,
+	seconds: number,
+	opts: LoadOptions = {}
+): Promise<LoadResult> {
 	if (!url.startsWith('http://127.0.0.1:')) throw new Error('benchmarks only target loopback');
-	const child = spawn(process.execPath, ['--import', 'tsx', 'bench/load-worker.ts'], { stdio: ['pipe', 'pipe', 'inherit'] });
+	const child = spawn(process.execPath, ['--import', 'tsx', 'bench/load-worker.ts'], {
+		stdio: ['pipe', 'pipe', 'inherit']
+	});
 	child.stdin!.end(JSON.stringify({ url, seconds, ...opts }));
 	let out = '';
 	child.stdout!.on('data', (d) => (out += d));
@@ -75,6 +84,8 @@ export async function load(url: string, seconds: number, opts: LoadOptions = {})
 
 /** `count` frequencies spread over [lo, hi] Hz, rounded to 1 kHz. */
 export function frequencies(lo: number, hi: number, count = 64): number[] {
-	return Array.from({ length: count }, (_, i) => Math.round((lo + ((hi - lo) * i) / (count - 1)) / 1e3) * 1e3);
+	return Array.from(
+		{ length: count },
+		(_, i) => Math.round((lo + ((hi - lo) * i) / (count - 1)) / 1e3) * 1e3
+	);
 }
-

@@ -2,4 +2,6 @@
 import { seedDemo } from '$lib/server/seed/demo';
 
 await seedDemo();
-console.log('Demo data is in place. Every account, design and sweep it made is marked as demo data.');
+console.log(
+	'Demo data is in place. Every account, design and sweep it made is marked as demo data.'
+);

@@ -19,7 +19,9 @@ function newestMtime(dir) {
 }
 
 const built = existsSync('build/index.js');
-const stale = built && ['src', 'content', 'static'].some((d) => newestMtime(d) > statSync('build/index.js').mtimeMs);
+const stale =
+	built &&
+	['src', 'content', 'static'].some((d) => newestMtime(d) > statSync('build/index.js').mtimeMs);
 if (!built || stale) {
 	console.log(built ? 'Sources changed since the last build: building…' : 'Building Bandwright…');
 	const r = spawnSync('npm', ['run', 'build'], { stdio: 'inherit', env });
@@ -27,10 +29,14 @@ if (!built || stale) {
 }
 
 if (env.SEED_DEMO !== '0') {
-	const r = spawnSync('npx', ['tsx', '--tsconfig', 'scripts/tsconfig.json', 'scripts/seed-if-empty.ts'], {
-		stdio: 'inherit',
-		env
-	});
+	const r = spawnSync(
+		'npx',
+		['tsx', '--tsconfig', 'scripts/tsconfig.json', 'scripts/seed-if-empty.ts'],
+		{
+			stdio: 'inherit',
+			env
+		}
+	);
 	if (r.status !== 0) process.exit(r.status ?? 1);
 }
 

@@ -1,7 +1,9 @@
 import { expect, test } from '@playwright/test';
 import { BASE, DEMO, mailsTo, unique } from './helpers';
 
-test('sign-up: empty, too long, wrong type and weak passwords get field messages and write nothing', async ({ page }) => {
+test('sign-up: empty, too long, wrong type and weak passwords get field messages and write nothing', async ({
+	page
+}) => {
 	await page.goto('/signup');
 	await page.getByRole('button', { name: 'Create account' }).click();
 	await expect(page.getByText('Enter your e-mail address.')).toBeVisible();
@@ -26,7 +28,9 @@ test('sign-up: empty, too long, wrong type and weak passwords get field messages
 	expect(mailsTo(email)).toHaveLength(0);
 });
 
-test('sign-up with an address that has an account answers the same and makes no account', async ({ page }) => {
+test('sign-up with an address that has an account answers the same and makes no account', async ({
+	page
+}) => {
 	const before = mailsTo(DEMO.author.email).length;
 	await page.goto('/signup');
 	await page.getByLabel('E-mail').fill(DEMO.author.email.toUpperCase());
@@ -51,7 +55,13 @@ test('forms without JavaScript still validate on the server', async ({ browser }
 });
 
 test('bad, tampered and used tokens give a clear page, never a 500', async ({ page, request }) => {
-	for (const token of ['', 'abc', 'a.b.c', 'x'.repeat(500), 'aaaaaaaaaaaaaaaaaaaaaaaa.bbbbbbbbbbbbbbbbbbbbbbbb']) {
+	for (const token of [
+		'',
+		'abc',
+		'a.b.c',
+		'x'.repeat(500),
+		'aaaaaaaaaaaaaaaaaaaaaaaa.bbbbbbbbbbbbbbbbbbbbbbbb'
+	]) {
 		const res = await request.get(`/verify?token=${encodeURIComponent(token)}`);
 		expect(res.status(), token).toBeLessThan(500);
 		const r2 = await request.get(`/reset/confirm?token=${encodeURIComponent(token)}`);
@@ -68,12 +78,19 @@ test('bad, tampered and used tokens give a clear page, never a 500', async ({ pa
 
 test('a tampered session cookie counts as signed out', async ({ page, context }) => {
 	await context.addCookies([
-		{ name: 'bw_session', value: 'aaaaaaaaaaaaaaaaaaaaaaaa.bbbbbbbbbbbbbbbbbbbbbbbb', domain: 'localhost', path: '/' }
+		{
+			name: 'bw_session',
+			value: 'aaaaaaaaaaaaaaaaaaaaaaaa.bbbbbbbbbbbbbbbbbbbbbbbb',
+			domain: 'localhost',
+			path: '/'
+		}
 	]);
 	const res = await page.goto('/account');
 	expect(res?.status()).toBe(200);
 	await expect(page).toHaveURL(/\/signin/);
-	await context.addCookies([{ name: 'bw_session', value: '<script>', domain: 'localhost', path: '/' }]);
+	await context.addCookies([
+		{ name: 'bw_session', value: '<script>', domain: 'localhost', path: '/' }
+	]);
 	expect((await page.goto('/designs'))?.status()).toBeLessThan(500);
 });
 

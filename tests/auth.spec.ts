@@ -107,7 +107,10 @@ test('a moderator grants the reviewer role and the audit log records it', async 
 	await expect(page.getByTestId('role-message')).toContainText('reviewer to member');
 });
 
-test('members get 403 on moderator pages; anonymous visitors are sent to sign-in', async ({ page, request }) => {
+test('members get 403 on moderator pages; anonymous visitors are sent to sign-in', async ({
+	page,
+	request
+}) => {
 	const anon = await request.get('/moderation', { maxRedirects: 0 });
 	expect(anon.status()).toBe(303);
 	expect(anon.headers()['location']).toBe('/signin?next=%2Fmoderation');

@@ -5,7 +5,9 @@ import { XSS_VECTORS } from '../src/lib/testing/xss-corpus';
 
 const form = { origin: BASE, accept: 'text/html' };
 
-test('an author creates a design, adds rows with live values, saves and submits; search finds it', async ({ page }) => {
+test('an author creates a design, adds rows with live values, saves and submits; search finds it', async ({
+	page
+}) => {
 	const word = unique('tinplatexyz').replace(/-/g, '');
 	await signIn(page, DEMO.author);
 	await page.goto('/designs/new');
@@ -28,7 +30,9 @@ test('an author creates a design, adds rows with live values, saves and submits;
 	await row.locator('input[name=r_formula]').fill('lambda / nowhere');
 	await expect(row.getByTestId('live-value')).toContainText('nowhere');
 	await row.locator('input[name=r_formula]').fill('lambda / 8');
-	await page.getByLabel('Build notes (Markdown)').fill(`Bend the wire. Mount it over a ${word} reflector.`);
+	await page
+		.getByLabel('Build notes (Markdown)')
+		.fill(`Bend the wire. Mount it over a ${word} reflector.`);
 	await page.getByRole('button', { name: 'Save draft' }).click();
 	await expect(page.getByTestId('editor-message')).toHaveText('Draft saved.');
 	await page.getByRole('button', { name: 'Save and submit for review' }).click();
@@ -42,7 +46,9 @@ test('an author creates a design, adds rows with live values, saves and submits;
 	expect((await api.json()).total).toBe(1);
 });
 
-test('a reader rescales to 5.8 GHz without a reload, switches to inches, downloads the build sheet', async ({ page }) => {
+test('a reader rescales to 5.8 GHz without a reload, switches to inches, downloads the build sheet', async ({
+	page
+}) => {
 	// The third view is a kept copy (page cache): it must hydrate under its own CSP nonce like a render.
 	const nonces = new Set<string>();
 	for (let i = 0; i < 3; i++) {
@@ -51,7 +57,9 @@ test('a reader rescales to 5.8 GHz without a reload, switches to inches, downloa
 	}
 	expect(nonces.size).toBe(3);
 	await expect(page.getByTestId('cautions')).toBeVisible();
-	const marker = await page.evaluate(() => ((window as unknown as { marker: number }).marker = Math.random()));
+	const marker = await page.evaluate(
+		() => ((window as unknown as { marker: number }).marker = Math.random())
+	);
 	const input = page.getByLabel(/frequency/i).first();
 	await input.fill('5.8 GHz');
 	await expect(page).toHaveURL(/f=5800000000/);
@@ -70,7 +78,9 @@ test('a reader rescales to 5.8 GHz without a reload, switches to inches, downloa
 	expect([w, h]).toEqual([595.28, 841.89]); // ISO 216 A4 = 210 × 297 mm in 1/72 in points
 });
 
-test('the server renders a shared ?f= view without JavaScript, and bad ?f= values fall back clearly', async ({ browser }) => {
+test('the server renders a shared ?f= view without JavaScript, and bad ?f= values fall back clearly', async ({
+	browser
+}) => {
 	const ctx = await browser.newContext({ javaScriptEnabled: false });
 	const page = await ctx.newPage();
 	await page.goto('/designs/dipole-868?f=433.92M');
@@ -83,7 +93,10 @@ test('the server renders a shared ?f= view without JavaScript, and bad ?f= value
 	await ctx.close();
 });
 
-test('stored notes are sanitized for a corpus of XSS vectors; others cannot edit a draft; submitted is frozen', async ({ page, browser }) => {
+test('stored notes are sanitized for a corpus of XSS vectors; others cannot edit a draft; submitted is frozen', async ({
+	page,
+	browser
+}) => {
 	await signIn(page, DEMO.author);
 	await page.goto('/designs/new');
 	await page.locator('input[name=title]').fill(`XSS notes ${unique('x')}`);
@@ -113,9 +126,15 @@ test('stored notes are sanitized for a corpus of XSS vectors; others cannot edit
 	await page.goto(view);
 	const notes = page.getByTestId('notes');
 	expect(markup(await notes.innerHTML())).toBe(previewed);
-	expect(await notes.locator('script, iframe, object, embed, form, input, style, base, meta').count()).toBe(0);
+	expect(
+		await notes.locator('script, iframe, object, embed, form, input, style, base, meta').count()
+	).toBe(0);
 	const handlers = await notes.evaluate((el) =>
-		[...el.querySelectorAll('*')].flatMap((n) => [...n.attributes].filter((a) => /^on/i.test(a.name) || /^\s*(javascript|vbscript|data):/i.test(a.value)).map((a) => a.name))
+		[...el.querySelectorAll('*')].flatMap((n) =>
+			[...n.attributes]
+				.filter((a) => /^on/i.test(a.name) || /^\s*(javascript|vbscript|data):/i.test(a.value))
+				.map((a) => a.name)
+		)
 	);
 	expect(handlers).toEqual([]);
 	expect(dialogs).toEqual([]);
@@ -125,7 +144,10 @@ test('stored notes are sanitized for a corpus of XSS vectors; others cannot edit
 	const otherPage = await other.newPage();
 	await signIn(otherPage, DEMO.member);
 	expect((await otherPage.goto(editUrl))?.status()).toBe(404);
-	const post = await otherPage.request.post(`${editUrl}?/save`, { form: { notes: 'mine now' }, headers: form });
+	const post = await otherPage.request.post(`${editUrl}?/save`, {
+		form: { notes: 'mine now' },
+		headers: form
+	});
 	expect(post.status()).toBe(404);
 	await other.close();
 
@@ -134,16 +156,24 @@ test('stored notes are sanitized for a corpus of XSS vectors; others cannot edit
 	await page.getByRole('button', { name: 'Save and submit for review' }).click();
 	await expect(page.getByTestId('revision-state')).toContainText('Awaiting review');
 	expect((await page.goto(editUrl))?.status()).toBe(409);
-	const save = await page.request.post(`${editUrl}?/save`, { form: { notes: 'changed later' }, headers: form });
+	const save = await page.request.post(`${editUrl}?/save`, {
+		form: { notes: 'changed later' },
+		headers: form
+	});
 	expect(save.status()).toBe(409);
 	const submit = await page.request.post(`${view}?/submit`, { form: {}, headers: form });
 	expect(submit.status()).toBe(409);
-	const json = await (await page.request.get(`/api/v1${new URL(view).pathname.replace('/r/', '/revisions/')}`)).json();
+	const json = await (
+		await page.request.get(`/api/v1${new URL(view).pathname.replace('/r/', '/revisions/')}`)
+	).json();
 	expect(json.revision.notes).toContain(XSS_VECTORS[0]);
 	expect(json.revision.state).toBe('submitted');
 });
 
-test('bad authoring input: taken slug, long formula, 201 rows, huge notes, unverified author', async ({ page, browser }) => {
+test('bad authoring input: taken slug, long formula, 201 rows, huge notes, unverified author', async ({
+	page,
+	browser
+}) => {
 	await signIn(page, DEMO.author);
 	await page.goto('/designs/new');
 	await page.locator('input[name=title]').fill('Slug collision');
@@ -159,27 +189,59 @@ test('bad authoring input: taken slug, long formula, 201 rows, huge notes, unver
 	await expect(page.getByRole('heading', { name: 'Edit draft r1' })).toBeVisible();
 	const editUrl = page.url();
 	const base = {
-		design_frequency: '2.45 GHz', claim_centre: '2.45 GHz', claim_lo: '2.4 GHz', claim_hi: '2.5 GHz', claim_vswr: '2', notes: '', change_note: ''
+		design_frequency: '2.45 GHz',
+		claim_centre: '2.45 GHz',
+		claim_lo: '2.4 GHz',
+		claim_hi: '2.5 GHz',
+		claim_vswr: '2',
+		notes: '',
+		change_note: ''
 	};
 	const rows = (n: number, formula = 'lambda / 4') => {
 		const f = new URLSearchParams(base);
 		for (let i = 0; i < n; i++) {
-			for (const [k, v] of [['r_key', `r${i}`], ['r_label', `Row ${i}`], ['r_formula', formula], ['r_kind', 'resonant'], ['r_catalogue', ''], ['r_tolerance', ''], ['r_ratio_lo', ''], ['r_ratio_hi', '']]) f.append(k, v);
+			for (const [k, v] of [
+				['r_key', `r${i}`],
+				['r_label', `Row ${i}`],
+				['r_formula', formula],
+				['r_kind', 'resonant'],
+				['r_catalogue', ''],
+				['r_tolerance', ''],
+				['r_ratio_lo', ''],
+				['r_ratio_hi', '']
+			])
+				f.append(k, v);
 		}
 		return f.toString();
 	};
 	const post = (body: string) =>
-		page.request.post(`${editUrl}?/save`, { data: body, headers: { ...form, 'content-type': 'application/x-www-form-urlencoded' } });
+		page.request.post(`${editUrl}?/save`, {
+			data: body,
+			headers: { ...form, 'content-type': 'application/x-www-form-urlencoded' }
+		});
 	const tooMany = await post(rows(201));
 	expect(tooMany.status()).toBe(400);
 	expect(await tooMany.text()).toContain('at most 200 rows');
 	const longFormula = await post(rows(1, `lambda / 4 + ${'0 * lambda + '.repeat(40)}0 mm`));
 	expect(longFormula.status()).toBe(400);
 	expect(await longFormula.text()).toContain('500');
-	const huge = await post(new URLSearchParams({ ...base, notes: 'x'.repeat(201 * 1024), r_key: 'a', r_label: 'A', r_formula: 'lambda/4', r_kind: 'resonant' }).toString());
+	const huge = await post(
+		new URLSearchParams({
+			...base,
+			notes: 'x'.repeat(201 * 1024),
+			r_key: 'a',
+			r_label: 'A',
+			r_formula: 'lambda/4',
+			r_kind: 'resonant'
+		}).toString()
+	);
 	expect(huge.status()).toBe(400);
 	expect(await huge.text()).toContain('200 kB');
-	const api = await (await page.request.get(`/api/v1${new URL(editUrl).pathname.replace('/r/', '/revisions/').replace(/\/edit$/, '')}`)).json();
+	const api = await (
+		await page.request.get(
+			`/api/v1${new URL(editUrl).pathname.replace('/r/', '/revisions/').replace(/\/edit$/, '')}`
+		)
+	).json();
 	expect(api.revision.rows).toHaveLength(1);
 
 	const ctx = await browser.newContext();

@@ -17,7 +17,9 @@ const outboxDir = () => join(process.env.E2E_DATA_DIR!, 'outbox');
 export function mailsTo(to: string): string[] {
 	let files: string[] = [];
 	try {
-		files = readdirSync(outboxDir()).filter((f) => f.endsWith('.eml')).sort();
+		files = readdirSync(outboxDir())
+			.filter((f) => f.endsWith('.eml'))
+			.sort();
 	} catch {
 		return [];
 	}
@@ -32,7 +34,9 @@ export async function lastLinkTo(to: string, path: string): Promise<string> {
 	await expect
 		.poll(() => {
 			const mails = mailsTo(to);
-			const m = mails.at(-1)?.match(new RegExp(`https?://[^\\s]+${path.replace('/', '\\/')}[^\\s]*`));
+			const m = mails
+				.at(-1)
+				?.match(new RegExp(`https?://[^\\s]+${path.replace('/', '\\/')}[^\\s]*`));
 			link = m?.[0];
 			return link;
 		})
@@ -48,6 +52,7 @@ export async function signIn(page: Page, who: { email: string; password: string 
 	await expect(page.getByTestId('signed-in-as')).toBeVisible();
 }
 
-export const unique = (prefix: string) => `${prefix}-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`;
+export const unique = (prefix: string) =>
+	`${prefix}-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`;
 
 export const BASE = `http://localhost:${process.env.E2E_PORT ?? 4173}`;

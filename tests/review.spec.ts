@@ -5,7 +5,11 @@ import { XSS_VECTORS } from '../src/lib/testing/xss-corpus';
 const FORM = { origin: BASE, accept: 'text/html' };
 
 /** The Subject header, unfolded (long headers are folded over several lines). */
-const subject = (raw: string) => raw.replace(/\r?\n(?=[ \t])/g, '').match(/^Subject: (.*)$/m)?.[1]?.trim() ?? '';
+const subject = (raw: string) =>
+	raw
+		.replace(/\r?\n(?=[ \t])/g, '')
+		.match(/^Subject: (.*)$/m)?.[1]
+		?.trim() ?? '';
 
 /** A design file with a quarter-wave row at 5.8 GHz and three lines of notes. */
 function designFile(slug: string, title: string) {
@@ -54,7 +58,13 @@ async function importDesign(page: Page, submit = true) {
 	await page.goto('/designs/new');
 	// Attach the file after hydration, or the hydrated form starts without it.
 	await page.waitForLoadState('networkidle');
-	await page.getByLabel('Design file').setInputFiles({ name: `${slug}.md`, mimeType: 'text/markdown', buffer: Buffer.from(designFile(slug, title)) });
+	await page
+		.getByLabel('Design file')
+		.setInputFiles({
+			name: `${slug}.md`,
+			mimeType: 'text/markdown',
+			buffer: Buffer.from(designFile(slug, title))
+		});
 	await page.getByRole('button', { name: /import/i }).click();
 	await expect(page).toHaveURL(new RegExp(`/designs/${slug}/r/1/edit`));
 	if (submit) {
@@ -64,7 +74,9 @@ async function importDesign(page: Page, submit = true) {
 	return { slug, title };
 }
 
-test('review round trip: comment, return, reply, r2, compare at 5.8 GHz, approve, mails', async ({ browser }) => {
+test('review round trip: comment, return, reply, r2, compare at 5.8 GHz, approve, mails', async ({
+	browser
+}) => {
 	const author = await as(browser, DEMO.author);
 	const { slug, title } = await importDesign(author);
 
@@ -87,9 +99,13 @@ test('review round trip: comment, return, reply, r2, compare at 5.8 GHz, approve
 	// Comment on a row, using the row's Comment button (it picks the anchor).
 	await reviewer.getByRole('button', { name: 'Comment on row Quarter-wave side' }).click();
 	await expect(reviewer.getByLabel('A dimension row')).toBeChecked();
-	await reviewer.getByLabel('Comment (Markdown)').fill('Is the **side** measured to the wire centre?');
+	await reviewer
+		.getByLabel('Comment (Markdown)')
+		.fill('Is the **side** measured to the wire centre?');
 	await reviewer.getByRole('button', { name: 'Add comment' }).click();
-	const rowThread = reviewer.getByTestId('thread').filter({ hasText: 'measured to the wire centre' });
+	const rowThread = reviewer
+		.getByTestId('thread')
+		.filter({ hasText: 'measured to the wire centre' });
 	await expect(rowThread.getByTestId('thread-anchor')).toHaveText('Row side');
 	await expect(rowThread.locator('strong')).toHaveText('side');
 
@@ -99,7 +115,9 @@ test('review round trip: comment, return, reply, r2, compare at 5.8 GHz, approve
 	await reviewer.getByLabel('Last line').fill('3');
 	await reviewer.getByLabel('Comment (Markdown)').fill('Which solder and flux?');
 	await reviewer.getByRole('button', { name: 'Add comment' }).click();
-	await expect(reviewer.getByTestId('thread').filter({ hasText: 'Which solder' }).getByTestId('thread-anchor')).toHaveText('Lines 2–3');
+	await expect(
+		reviewer.getByTestId('thread').filter({ hasText: 'Which solder' }).getByTestId('thread-anchor')
+	).toHaveText('Lines 2–3');
 
 	// Return it for revision.
 	await reviewer.getByRole('radio', { name: /^Revise/ }).check();
@@ -111,7 +129,9 @@ test('review round trip: comment, return, reply, r2, compare at 5.8 GHz, approve
 	let link = '';
 	await expect
 		.poll(() => {
-			const mail = mailsTo(DEMO.author.email).filter((m) => m.includes(title) && m.includes('#comment-')).at(-1);
+			const mail = mailsTo(DEMO.author.email)
+				.filter((m) => m.includes(title) && m.includes('#comment-'))
+				.at(-1);
 			link = mail?.match(/https?:\/\/\S+#comment-\S+/)?.[0] ?? '';
 			return link;
 		})
@@ -141,7 +161,10 @@ test('review round trip: comment, return, reply, r2, compare at 5.8 GHz, approve
 	await expect(side.getByTestId('delta-pct')).toHaveText('−5.00 %');
 	await expect(side).toContainText('12.92 mm → 12.28 mm');
 	await expect(side).toContainText('beyond its ±0.2 mm tolerance');
-	await expect(reviewer.locator('[data-testid=diff-row][data-key=wire]')).toHaveAttribute('data-change', 'unchanged');
+	await expect(reviewer.locator('[data-testid=diff-row][data-key=wire]')).toHaveAttribute(
+		'data-change',
+		'unchanged'
+	);
 	await expect(reviewer.getByTestId('sweep-shift')).toContainText('No sweeps');
 
 	// Changing the frequency refetches from the API without a full reload.
@@ -171,7 +194,11 @@ test('review round trip: comment, return, reply, r2, compare at 5.8 GHz, approve
 
 	// The author got a mail for each comment and each review.
 	await expect
-		.poll(() => mailsTo(DEMO.author.email).filter((m) => m.includes(title)).map(subject))
+		.poll(() =>
+			mailsTo(DEMO.author.email)
+				.filter((m) => m.includes(title))
+				.map(subject)
+		)
 		.toEqual(
 			expect.arrayContaining([
 				`Comment on ${title} r1`,
@@ -179,30 +206,52 @@ test('review round trip: comment, return, reply, r2, compare at 5.8 GHz, approve
 				`Review of ${title} r2: approved`
 			])
 		);
-	expect(mailsTo(DEMO.author.email).filter((m) => subject(m) === `Comment on ${title} r1`)).toHaveLength(2);
+	expect(
+		mailsTo(DEMO.author.email).filter((m) => subject(m) === `Comment on ${title} r1`)
+	).toHaveLength(2);
 	// The reviewer's thread got the author's reply by mail.
-	await expect.poll(() => mailsTo(DEMO.reviewer.email).filter((m) => subject(m) === `Reply on ${title} r1`).length).toBe(1);
+	await expect
+		.poll(
+			() => mailsTo(DEMO.reviewer.email).filter((m) => subject(m) === `Reply on ${title} r1`).length
+		)
+		.toBe(1);
 });
 
-test('bad input: 403, 404, 409, 422 with messages, same-revision view, sanitized XSS', async ({ browser }) => {
+test('bad input: 403, 404, 409, 422 with messages, same-revision view, sanitized XSS', async ({
+	browser
+}) => {
 	const author = await as(browser, DEMO.author);
 	const reviewer = await as(browser, DEMO.reviewer);
 	const member = await as(browser, DEMO.member);
 	const { slug } = await importDesign(author);
-	const post = (p: Page, path: string, form: Record<string, string>) => p.request.post(path, { form, headers: FORM });
+	const post = (p: Page, path: string, form: Record<string, string>) =>
+		p.request.post(path, { form, headers: FORM });
 
 	// Members do not review; authors are not offered their own revision and cannot review it.
 	expect((await member.goto('/review'))?.status()).toBe(403);
-	expect((await post(author, `/review/${slug}/1?/review`, { verdict: 'approve', summary: 'mine' })).status()).toBe(403);
+	expect(
+		(
+			await post(author, `/review/${slug}/1?/review`, { verdict: 'approve', summary: 'mine' })
+		).status()
+	).toBe(403);
 
 	// Anchors to a missing row, huge comments: 422 with a message, nothing stored.
-	const noRow = await post(reviewer, `/review/${slug}/1?/comment`, { body: 'x', anchor: 'row', row_key: 'no_such_row' });
+	const noRow = await post(reviewer, `/review/${slug}/1?/comment`, {
+		body: 'x',
+		anchor: 'row',
+		row_key: 'no_such_row'
+	});
 	expect(noRow.status()).toBe(422);
 	expect(await noRow.text()).toContain('no dimension row with the key');
 	const huge = await post(reviewer, `/review/${slug}/1?/comment`, { body: 'a'.repeat(20_001) });
 	expect(huge.status()).toBe(422);
 	expect(await huge.text()).toContain('the limit is 20,000');
-	const badLines = await post(reviewer, `/review/${slug}/1?/comment`, { body: 'x', anchor: 'lines', line_start: '2', line_end: '9' });
+	const badLines = await post(reviewer, `/review/${slug}/1?/comment`, {
+		body: 'x',
+		anchor: 'lines',
+		line_start: '2',
+		line_end: '9'
+	});
 	expect(badLines.status()).toBe(422);
 
 	// XSS through the stored view: every corpus vector is a comment, none runs or keeps a handler.
@@ -222,10 +271,19 @@ test('bad input: 403, 404, 409, 422 with messages, same-revision view, sanitized
 		let bad = 0;
 		root.forEach((el) => {
 			el.querySelectorAll('*').forEach((n) => {
-				if (['SCRIPT', 'IFRAME', 'OBJECT', 'EMBED', 'SVG', 'FORM', 'INPUT', 'STYLE'].includes(n.tagName.toUpperCase())) bad++;
+				if (
+					['SCRIPT', 'IFRAME', 'OBJECT', 'EMBED', 'SVG', 'FORM', 'INPUT', 'STYLE'].includes(
+						n.tagName.toUpperCase()
+					)
+				)
+					bad++;
 				for (const a of Array.from(n.attributes)) {
 					if (a.name.startsWith('on')) bad++;
-					if ((a.name === 'href' || a.name === 'src') && /^\s*(javascript|vbscript|data):/i.test(a.value)) bad++;
+					if (
+						(a.name === 'href' || a.name === 'src') &&
+						/^\s*(javascript|vbscript|data):/i.test(a.value)
+					)
+						bad++;
 				}
 			});
 		});
@@ -235,9 +293,15 @@ test('bad input: 403, 404, 409, 422 with messages, same-revision view, sanitized
 	expect(dialogs).toBe(0);
 
 	// Diff API: a revision number this design does not have is 404; junk is 400; from == to is "same".
-	expect((await reviewer.request.get(`/api/v1/designs/${slug}/diff?from=1&to=7`)).status()).toBe(404);
-	expect((await reviewer.request.get(`/api/v1/designs/${slug}/diff?from=one&to=1`)).status()).toBe(400);
-	expect((await reviewer.request.get(`/api/v1/designs/${slug}/diff?from=1&to=1&f=loud`)).status()).toBe(400);
+	expect((await reviewer.request.get(`/api/v1/designs/${slug}/diff?from=1&to=7`)).status()).toBe(
+		404
+	);
+	expect((await reviewer.request.get(`/api/v1/designs/${slug}/diff?from=one&to=1`)).status()).toBe(
+		400
+	);
+	expect(
+		(await reviewer.request.get(`/api/v1/designs/${slug}/diff?from=1&to=1&f=loud`)).status()
+	).toBe(400);
 	const same = await reviewer.request.get(`/api/v1/designs/${slug}/diff?from=1&to=1&f=5.8%20GHz`);
 	const body = await same.json();
 	expect(body.same).toBe(true);
@@ -252,7 +316,10 @@ test('bad input: 403, 404, 409, 422 with messages, same-revision view, sanitized
 	await author.goto(`/designs/${slug}/r/1`);
 	await author.getByRole('button', { name: 'Withdraw' }).click();
 	await expect(author.getByTestId('revision-state')).toContainText('Withdrawn');
-	const late = await post(reviewer, `/review/${slug}/1?/review`, { verdict: 'approve', summary: 'late' });
+	const late = await post(reviewer, `/review/${slug}/1?/review`, {
+		verdict: 'approve',
+		summary: 'late'
+	});
 	expect(late.status()).toBe(409);
 	expect(await late.text()).toContain('withdrawn');
 	expect((await post(reviewer, `/review/${slug}/1?/comment`, { body: 'late' })).status()).toBe(409);
@@ -262,11 +329,15 @@ test('bad input: 403, 404, 409, 422 with messages, same-revision view, sanitized
 	await expect(author).toHaveURL(new RegExp(`/designs/${slug}/r/2/edit`));
 	expect((await reviewer.goto(`/review/${slug}/2`))?.status()).toBe(404);
 	expect((await post(reviewer, `/review/${slug}/2?/comment`, { body: 'peek' })).status()).toBe(403);
-	expect((await reviewer.request.get(`/api/v1/designs/${slug}/diff?from=1&to=2`)).status()).toBe(404);
+	expect((await reviewer.request.get(`/api/v1/designs/${slug}/diff?from=1&to=2`)).status()).toBe(
+		404
+	);
 	expect((await author.request.get(`/api/v1/designs/${slug}/diff?from=1&to=2`)).status()).toBe(200);
 });
 
-test('a moderator confirms a rejection; the revision is returned and the reject stays on record', async ({ browser }) => {
+test('a moderator confirms a rejection; the revision is returned and the reject stays on record', async ({
+	browser
+}) => {
 	const author = await as(browser, DEMO.author);
 	const { slug } = await importDesign(author);
 	const reviewer = await as(browser, DEMO.reviewer2);
@@ -283,10 +354,14 @@ test('a moderator confirms a rejection; the revision is returned and the reject 
 	await expect(moderator.getByTestId('review-state')).toHaveText('Returned for revision');
 	await expect(moderator.getByTestId('review')).toContainText('Rejection confirmed by Wren');
 	await moderator.goto('/moderation/audit');
-	await expect(moderator.getByTestId('audit-row').filter({ hasText: 'review.reject_confirm' }).first()).toBeVisible();
+	await expect(
+		moderator.getByTestId('audit-row').filter({ hasText: 'review.reject_confirm' }).first()
+	).toBeVisible();
 });
 
-test('notification settings: a reviewer following patches gets a mail when one is submitted', async ({ browser }) => {
+test('notification settings: a reviewer following patches gets a mail when one is submitted', async ({
+	browser
+}) => {
 	const reviewer = await as(browser, DEMO.reviewer2);
 	await reviewer.goto('/account');
 	const form = reviewer.getByTestId('notification-form');
@@ -300,9 +375,15 @@ test('notification settings: a reviewer following patches gets a mail when one i
 	const author = await as(browser, DEMO.author);
 	const { slug, title } = await importDesign(author);
 	await expect
-		.poll(() => mailsTo(DEMO.reviewer2.email).filter((m) => subject(m) === `Review wanted: ${title} r1`).length)
+		.poll(
+			() =>
+				mailsTo(DEMO.reviewer2.email).filter((m) => subject(m) === `Review wanted: ${title} r1`)
+					.length
+		)
 		.toBe(1);
-	expect(mailsTo(DEMO.reviewer2.email).find((m) => m.includes(title))).toContain(`/review/${slug}/1`);
+	expect(mailsTo(DEMO.reviewer2.email).find((m) => m.includes(title))).toContain(
+		`/review/${slug}/1`
+	);
 
 	// Put it back for other specs.
 	await form.getByLabel(/submitted for review in a family I follow/).uncheck();

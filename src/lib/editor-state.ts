@@ -6,7 +6,14 @@ import { formatFrequency, parseFrequency } from './rf/units/frequency';
 import { revisionContentSchema, type RevisionContent, type RowKindValue } from './schemas/design';
 import type { EditorForm } from './schemas/editor';
 
-export interface EditorParameter { key: string; label: string; value: string; unit: string; ratio_lo: string; ratio_hi: string }
+export interface EditorParameter {
+	key: string;
+	label: string;
+	value: string;
+	unit: string;
+	ratio_lo: string;
+	ratio_hi: string;
+}
 export interface EditorRow {
 	key: string;
 	label: string;
@@ -21,7 +28,14 @@ export interface EditorState {
 	design_frequency: string;
 	parameters: EditorParameter[];
 	rows: EditorRow[];
-	claim: { centre: string; lo: string; hi: string; vswr: string; gain: string; gain_verified: boolean };
+	claim: {
+		centre: string;
+		lo: string;
+		hi: string;
+		vswr: string;
+		gain: string;
+		gain_verified: boolean;
+	};
 	notes: string;
 	change_note: string;
 }
@@ -67,23 +81,51 @@ export function contentToEditor(c: RevisionContent): EditorState {
 /** The editor's state from its posted form (see editorFormSchema); rows past MAX_FORM_ROWS are dropped. */
 export function editorFromForm(f: EditorForm): EditorState {
 	const all = (cells: string[]) => cells.slice(0, MAX_FORM_ROWS);
-	const p = { key: all(f.p_key), label: f.p_label, value: f.p_value, unit: f.p_unit, lo: f.p_ratio_lo, hi: f.p_ratio_hi };
+	const p = {
+		key: all(f.p_key),
+		label: f.p_label,
+		value: f.p_value,
+		unit: f.p_unit,
+		lo: f.p_ratio_lo,
+		hi: f.p_ratio_hi
+	};
 	const r = {
-		key: all(f.r_key), label: f.r_label, formula: f.r_formula, kind: f.r_kind,
-		catalogue: f.r_catalogue, tolerance: f.r_tolerance, lo: f.r_ratio_lo, hi: f.r_ratio_hi
+		key: all(f.r_key),
+		label: f.r_label,
+		formula: f.r_formula,
+		kind: f.r_kind,
+		catalogue: f.r_catalogue,
+		tolerance: f.r_tolerance,
+		lo: f.r_ratio_lo,
+		hi: f.r_ratio_hi
 	};
 	return {
 		design_frequency: f.design_frequency,
 		parameters: p.key.map((key, i) => ({
-			key, label: p.label[i] ?? '', value: p.value[i] ?? '', unit: p.unit[i] ?? '', ratio_lo: p.lo[i] ?? '', ratio_hi: p.hi[i] ?? ''
+			key,
+			label: p.label[i] ?? '',
+			value: p.value[i] ?? '',
+			unit: p.unit[i] ?? '',
+			ratio_lo: p.lo[i] ?? '',
+			ratio_hi: p.hi[i] ?? ''
 		})),
 		rows: r.key.map((key, i) => ({
-			key, label: r.label[i] ?? '', formula: r.formula[i] ?? '', kind: (r.kind[i] || 'resonant') as RowKindValue,
-			catalogue: r.catalogue[i] ?? '', tolerance: r.tolerance[i] ?? '', ratio_lo: r.lo[i] ?? '', ratio_hi: r.hi[i] ?? ''
+			key,
+			label: r.label[i] ?? '',
+			formula: r.formula[i] ?? '',
+			kind: (r.kind[i] || 'resonant') as RowKindValue,
+			catalogue: r.catalogue[i] ?? '',
+			tolerance: r.tolerance[i] ?? '',
+			ratio_lo: r.lo[i] ?? '',
+			ratio_hi: r.hi[i] ?? ''
 		})),
 		claim: {
-			centre: f.claim_centre, lo: f.claim_lo, hi: f.claim_hi, vswr: f.claim_vswr,
-			gain: f.claim_gain, gain_verified: f.claim_gain_verified
+			centre: f.claim_centre,
+			lo: f.claim_lo,
+			hi: f.claim_hi,
+			vswr: f.claim_vswr,
+			gain: f.claim_gain,
+			gain_verified: f.claim_gain_verified
 		},
 		notes: f.notes.replace(/\r\n/g, '\n'),
 		change_note: f.change_note
@@ -97,13 +139,17 @@ function num(text: string): number | undefined {
 	return Number.isFinite(n) ? n : NaN;
 }
 
-const blank = (o: object) => Object.values(o).every((v) => v === '' || v === 'resonant' || v === false);
-const defined = <T extends object>(o: T) => Object.fromEntries(Object.entries(o).filter(([, v]) => v !== undefined));
+const blank = (o: object) =>
+	Object.values(o).every((v) => v === '' || v === 'resonant' || v === false);
+const defined = <T extends object>(o: T) =>
+	Object.fromEntries(Object.entries(o).filter(([, v]) => v !== undefined));
 const ratio = (lo: string, hi: string): [number, number] | undefined =>
 	lo.trim() === '' && hi.trim() === '' ? undefined : [num(lo) ?? NaN, num(hi) ?? NaN];
 
 /** Validates the editor's text against the revision schema; errors are keyed by field path. */
-export function editorToContent(e: EditorState): { ok: true; content: RevisionContent } | { ok: false; errors: EditorErrors } {
+export function editorToContent(
+	e: EditorState
+): { ok: true; content: RevisionContent } | { ok: false; errors: EditorErrors } {
 	const errors: EditorErrors = {};
 	const freq = (text: string, field: string) => {
 		const parsed = parseFrequency(text);
@@ -116,7 +162,15 @@ export function editorToContent(e: EditorState): { ok: true; content: RevisionCo
 		design_frequency_hz: freq(e.design_frequency, 'design_frequency_hz'),
 		parameters: e.parameters
 			.filter((p) => !blank(p))
-			.map((p) => defined({ key: p.key.trim(), label: p.label.trim(), value: num(p.value) ?? NaN, unit: p.unit.trim() || undefined, valid_ratio: ratio(p.ratio_lo, p.ratio_hi) })),
+			.map((p) =>
+				defined({
+					key: p.key.trim(),
+					label: p.label.trim(),
+					value: num(p.value) ?? NaN,
+					unit: p.unit.trim() || undefined,
+					valid_ratio: ratio(p.ratio_lo, p.ratio_hi)
+				})
+			),
 		rows: e.rows
 			.filter((r) => !blank(r))
 			.map((r) =>
@@ -144,13 +198,20 @@ export function editorToContent(e: EditorState): { ok: true; content: RevisionCo
 	if (!parsed.success) {
 		for (const issue of parsed.error.issues) {
 			const path = issue.path.reduce<string>(
-				(out, part) => (typeof part === 'number' ? `${out}[${part}]` : out ? `${out}.${String(part)}` : String(part)),
+				(out, part) =>
+					typeof part === 'number'
+						? `${out}[${part}]`
+						: out
+							? `${out}.${String(part)}`
+							: String(part),
 				''
 			);
 			errors[path] ??= issue.message;
 		}
 	}
-	return parsed.success && Object.keys(errors).length === 0 ? { ok: true, content: parsed.data } : { ok: false, errors };
+	return parsed.success && Object.keys(errors).length === 0
+		? { ok: true, content: parsed.data }
+		: { ok: false, errors };
 }
 
 /** The evaluate API's request for the editor's current text (rows that cannot be sent are left out). */
@@ -159,7 +220,11 @@ export function editorEvaluateRequest(e: EditorState, frequencyHz: number) {
 		frequency_hz: frequencyHz,
 		parameters: e.parameters
 			.filter((p) => p.key.trim())
-			.map((p) => ({ key: p.key.trim(), label: p.label, value: p.unit.trim() ? `${p.value} ${p.unit.trim()}` : num(p.value) ?? p.value })),
+			.map((p) => ({
+				key: p.key.trim(),
+				label: p.label,
+				value: p.unit.trim() ? `${p.value} ${p.unit.trim()}` : (num(p.value) ?? p.value)
+			})),
 		rows: e.rows
 			.filter((r) => r.key.trim() && r.formula.trim())
 			.map((r) => {

@@ -1,7 +1,8 @@
 import { FAMILIES, POLARIZATIONS } from '$lib/schemas/design';
 
 export const familyLabel = (v: string) => FAMILIES.find((f) => f.value === v)?.label ?? v;
-export const polarizationLabel = (v: string) => POLARIZATIONS.find((p) => p.value === v)?.label ?? v;
+export const polarizationLabel = (v: string) =>
+	POLARIZATIONS.find((p) => p.value === v)?.label ?? v;
 
 export const STATE_LABELS: Record<string, string> = {
 	draft: 'Draft',

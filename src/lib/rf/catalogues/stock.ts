@@ -82,9 +82,10 @@ const tubeInch: [string, number][] = [
 	['1 5/8', 13 / 8],
 	['2 1/8', 17 / 8]
 ];
-const tube = [...tubeMetric, ...tubeInch.map(([n, d]) => mm(d * MM_PER_INCH, `${n} in OD tube`))].sort(
-	(a, b) => a.value_m - b.value_m
-);
+const tube = [
+	...tubeMetric,
+	...tubeInch.map(([n, d]) => mm(d * MM_PER_INCH, `${n} in OD tube`))
+].sort((a, b) => a.value_m - b.value_m);
 
 export const CATALOGUES: Readonly<Record<CatalogueId, readonly StockItem[]>> = {
 	awg,

@@ -14,7 +14,6 @@ import { compileNode, FormulaError } from './compile';
 import type { CompileScope, Compiled } from './types';
 import { parseExpression } from './sandbox';
 
-
 export interface LocatedError {
 	message: string;
 	column?: number;

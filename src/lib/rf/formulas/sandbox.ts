@@ -86,7 +86,6 @@ for (const name of DISABLED) {
 }
 math.import(disabled, { override: true });
 
-
 export function isMathName(name: string): boolean {
 	return MATH_NAMES.has(name);
 }

@@ -90,7 +90,6 @@ export function syntheticResonatorSweep(o: ResonatorOptions): Sweep {
 	return sweep;
 }
 
-
 export interface TouchstoneWriteOptions {
 	unit: FrequencyUnit;
 	format: 'DB' | 'MA' | 'RI';

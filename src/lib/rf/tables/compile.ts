@@ -4,7 +4,13 @@
  * "depends on <key>". Environment slots: 0 f, 1 lambda, 2 c, then parameters, then rows.
  */
 import { isCatalogueId, type CatalogueId } from '../catalogues/stock';
-import { KEY_PATTERN, MAX_PARAMETERS, MAX_ROWS, PARSER_WORDS, SCOPE_NAMES } from '../formulas/limits';
+import {
+	KEY_PATTERN,
+	MAX_PARAMETERS,
+	MAX_ROWS,
+	PARSER_WORDS,
+	SCOPE_NAMES
+} from '../formulas/limits';
 import { compileFormula, type LocatedError } from '../formulas/formula';
 import type { CompileScope, Compiled, ScopeEntry } from '../formulas/types';
 import {

@@ -59,7 +59,9 @@ const bandHz = z
 	.refine(([lo, hi]) => lo < hi, { message: 'band_hz low edge must be below the high edge' })
 	.optional();
 
-const units = z.enum(['mm', 'in', 'in_frac'], { error: 'units must be mm, in or in_frac' }).optional();
+const units = z
+	.enum(['mm', 'in', 'in_frac'], { error: 'units must be mm, in or in_frac' })
+	.optional();
 
 /** The fields of a request besides the table: what changes from one call to the next. */
 const optionsSchema = z.object(

@@ -30,7 +30,12 @@ export const HZ_PER_UNIT = Object.fromEntries(
 const UNIT_EXPONENTS: Record<string, number> = Object.fromEntries(
 	HZ_PREFIXES.flatMap((p) => {
 		const name = p.unit.toLowerCase();
-		return name === 'hz' ? [[name, 0]] : [[name, p.exponent], [name[0], p.exponent]];
+		return name === 'hz'
+			? [[name, 0]]
+			: [
+					[name, p.exponent],
+					[name[0], p.exponent]
+				];
 	})
 );
 

@@ -17,7 +17,12 @@ describe('parseViewState', () => {
 	it('reads f as text with a unit, units and a preset (ITU RR 5.150: 5725–5875 MHz)', () => {
 		const { view, problems } = parse('f=5.8%20GHz&units=in_frac&band=ism-5g8');
 		expect(problems).toEqual([]);
-		expect(view).toEqual({ frequencyHz: 5.8e9, units: 'in_frac', bandId: 'ism-5g8', band: [5.725e9, 5.875e9] });
+		expect(view).toEqual({
+			frequencyHz: 5.8e9,
+			units: 'in_frac',
+			bandId: 'ism-5g8',
+			band: [5.725e9, 5.875e9]
+		});
 	});
 
 	it('has no band away from the design frequency without a preset', () => {
@@ -33,7 +38,12 @@ describe('parseViewState', () => {
 		expect(bad.problems.map((p) => p.field)).toEqual(['f', 'units', 'band']);
 		expect(bad.problems[1].message).toBe('units must be mm, in or in_frac.');
 		expect(bad.problems[2].message).toBe('Unknown band preset.');
-		expect(bad.view).toEqual({ frequencyHz: 2.45e9, units: 'mm', bandId: null, band: [2.4e9, 2.5e9] });
+		expect(bad.view).toEqual({
+			frequencyHz: 2.45e9,
+			units: 'mm',
+			bandId: null,
+			band: [2.4e9, 2.5e9]
+		});
 		expect(bad.notice).toMatch(/^Frequency "abc" ignored: .* Showing 2\.45 GHz\.$/);
 		expect(parse('band=nowhere').notice).toBe('Unknown band preset ignored.');
 	});

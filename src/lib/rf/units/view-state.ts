@@ -46,7 +46,10 @@ export function parseViewState(
 	let hz = lenient.hz;
 	const unitsText = params.get('units');
 	if (unitsText !== null && parseUnits(unitsText) !== unitsText) {
-		problems.push({ field: 'units', message: `units must be ${UNITS.join(', ').replace(/, (?=[^,]*$)/, ' or ')}.` });
+		problems.push({
+			field: 'units',
+			message: `units must be ${UNITS.join(', ').replace(/, (?=[^,]*$)/, ' or ')}.`
+		});
 	}
 	const bandText = params.get('band');
 	const preset = bandText ? bandById(bandText) : undefined;

@@ -17,10 +17,20 @@ export function newId(): string {
 }
 
 export function findUserByEmail(email: string) {
-	return db.select().from(users).where(eq(users.email, normalizeEmail(email))).get() ?? null;
+	return (
+		db
+			.select()
+			.from(users)
+			.where(eq(users.email, normalizeEmail(email)))
+			.get() ?? null
+	);
 }
 
-export async function createAccount(input: { email: string; displayName: string; password: string }) {
+export async function createAccount(input: {
+	email: string;
+	displayName: string;
+	password: string;
+}) {
 	const email = normalizeEmail(input.email);
 	const passwordHash = await hashPassword(input.password);
 	const id = newId();
@@ -49,7 +59,13 @@ export function issueEmailToken(userId: string, purpose: TokenPurpose, now = Dat
 	const secret = randomSecret();
 	db.transaction((tx) => {
 		tx.delete(emailTokens)
-			.where(and(eq(emailTokens.userId, userId), eq(emailTokens.purpose, purpose), isNull(emailTokens.usedAt)))
+			.where(
+				and(
+					eq(emailTokens.userId, userId),
+					eq(emailTokens.purpose, purpose),
+					isNull(emailTokens.usedAt)
+				)
+			)
 			.run();
 		tx.insert(emailTokens)
 			.values({
@@ -64,7 +80,8 @@ export function issueEmailToken(userId: string, purpose: TokenPurpose, now = Dat
 	return `${id}.${secret}`;
 }
 
-export type TokenCheck = { ok: true; userId: string } | { ok: false; reason: 'invalid' | 'expired' | 'used' };
+export type TokenCheck =
+	{ ok: true; userId: string } | { ok: false; reason: 'invalid' | 'expired' | 'used' };
 
 export function peekEmailToken(token: string, purpose: TokenPurpose, now = Date.now()): TokenCheck {
 	const [id, secret, extra] = token.split('.');
@@ -95,13 +112,20 @@ export function verifyEmail(token: string, now = Date.now()): TokenCheck {
 	if (!check.ok) return check;
 	return db.transaction((tx) => {
 		if (markUsed(token, now) !== 1) return { ok: false as const, reason: 'used' as const };
-		tx.update(users).set({ emailVerifiedAt: new Date(now) }).where(eq(users.id, check.userId)).run();
+		tx.update(users)
+			.set({ emailVerifiedAt: new Date(now) })
+			.where(eq(users.id, check.userId))
+			.run();
 		return check;
 	});
 }
 
 /** Sets the new password, uses up the token and ends every session of the account. */
-export async function resetPassword(token: string, password: string, now = Date.now()): Promise<TokenCheck> {
+export async function resetPassword(
+	token: string,
+	password: string,
+	now = Date.now()
+): Promise<TokenCheck> {
 	const check = peekEmailToken(token, 'reset_password', now);
 	if (!check.ok) return check;
 	const passwordHash = await hashPassword(password);

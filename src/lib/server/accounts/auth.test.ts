@@ -10,10 +10,21 @@ import {
 	invalidateUserSessions,
 	validateSessionToken
 } from './auth';
-import { createAccount, issueEmailToken, peekEmailToken, resetPassword, verifyEmail, checkCredentials } from './accounts';
+import {
+	createAccount,
+	issueEmailToken,
+	peekEmailToken,
+	resetPassword,
+	verifyEmail,
+	checkCredentials
+} from './accounts';
 
 async function newUser(email: string) {
-	const created = await createAccount({ email, displayName: 'Tester', password: 'a long test passphrase' });
+	const created = await createAccount({
+		email,
+		displayName: 'Tester',
+		password: 'a long test passphrase'
+	});
 	return created!.id;
 }
 
@@ -102,6 +113,12 @@ describe('e-mail tokens', () => {
 
 	it('a duplicate e-mail (any case) makes no second account', async () => {
 		await newUser('dup@example.org');
-		expect(await createAccount({ email: 'DUP@example.org', displayName: 'x', password: 'another long one' })).toBeNull();
+		expect(
+			await createAccount({
+				email: 'DUP@example.org',
+				displayName: 'x',
+				password: 'another long one'
+			})
+		).toBeNull();
 	});
 });

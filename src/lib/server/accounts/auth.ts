@@ -43,7 +43,10 @@ export function hashSecret(secret: string): Uint8Array {
 	return sha256(new TextEncoder().encode(secret));
 }
 
-export function createSession(userId: string, now = Date.now()): { token: string; session: Session } {
+export function createSession(
+	userId: string,
+	now = Date.now()
+): { token: string; session: Session } {
 	const id = randomSecret();
 	const secret = randomSecret();
 	const row = {
@@ -54,7 +57,10 @@ export function createSession(userId: string, now = Date.now()): { token: string
 		lastVerifiedAt: new Date(now)
 	};
 	db.insert(sessions).values(row).run();
-	return { token: `${id}.${secret}`, session: { id, userId, createdAt: row.createdAt, lastVerifiedAt: row.lastVerifiedAt } };
+	return {
+		token: `${id}.${secret}`,
+		session: { id, userId, createdAt: row.createdAt, lastVerifiedAt: row.lastVerifiedAt }
+	};
 }
 
 export function validateSessionToken(
@@ -90,7 +96,12 @@ export function validateSessionToken(
 		refreshed = true;
 	}
 	return {
-		session: { id: s.id, userId: s.userId, createdAt: s.createdAt, lastVerifiedAt: s.lastVerifiedAt },
+		session: {
+			id: s.id,
+			userId: s.userId,
+			createdAt: s.createdAt,
+			lastVerifiedAt: s.lastVerifiedAt
+		},
 		user: toSessionUser(row.user),
 		refreshed
 	};
@@ -114,11 +125,25 @@ export function invalidateUserSessions(userId: string): void {
 	db.delete(sessions).where(eq(sessions.userId, userId)).run();
 }
 
-export function setSessionCookie(cookies: Cookies, token: string, session: Session, secure: boolean) {
+export function setSessionCookie(
+	cookies: Cookies,
+	token: string,
+	session: Session,
+	secure: boolean
+) {
 	const expires = new Date(
-		Math.min(session.lastVerifiedAt.getTime() + INACTIVITY_MS, session.createdAt.getTime() + ABSOLUTE_MS)
+		Math.min(
+			session.lastVerifiedAt.getTime() + INACTIVITY_MS,
+			session.createdAt.getTime() + ABSOLUTE_MS
+		)
 	);
-	cookies.set(SESSION_COOKIE, token, { path: '/', httpOnly: true, sameSite: 'lax', secure, expires });
+	cookies.set(SESSION_COOKIE, token, {
+		path: '/',
+		httpOnly: true,
+		sameSite: 'lax',
+		secure,
+		expires
+	});
 }
 
 export function clearSessionCookie(cookies: Cookies) {

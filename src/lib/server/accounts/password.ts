@@ -28,10 +28,12 @@ export async function burnPasswordCheck(password: string): Promise<void> {
 
 export function passwordProblem(password: string, email?: string): string | null {
 	const chars = [...password].length;
-	if (chars < PASSWORD_MIN) return `Use at least ${PASSWORD_MIN} characters (15 or more is better).`;
+	if (chars < PASSWORD_MIN)
+		return `Use at least ${PASSWORD_MIN} characters (15 or more is better).`;
 	if (chars > PASSWORD_MAX) return `Use at most ${PASSWORD_MAX} characters.`;
 	const lower = password.toLowerCase();
 	if (COMMON_PASSWORDS.has(lower)) return 'This password is on the list of most common passwords.';
-	if (email && lower === email.toLowerCase()) return 'The password must not be your e-mail address.';
+	if (email && lower === email.toLowerCase())
+		return 'The password must not be your e-mail address.';
 	return null;
 }

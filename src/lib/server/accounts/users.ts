@@ -15,7 +15,9 @@ export function listUsers(query = '', limit = 200) {
 			createdAt: users.createdAt
 		})
 		.from(users);
-	const filtered = q ? base.where(or(like(users.email, `%${q}%`), like(users.displayName, `%${q}%`))) : base;
+	const filtered = q
+		? base.where(or(like(users.email, `%${q}%`), like(users.displayName, `%${q}%`)))
+		: base;
 	return filtered.orderBy(asc(users.email)).limit(limit).all();
 }
 
@@ -32,7 +34,13 @@ export function setRole(actorId: string | null, userId: string, role: Role): Rol
 		if (target.role === role) return { ok: true as const, from: role, to: role };
 		tx.update(users).set({ role }).where(eq(users.id, userId)).run();
 		audit(
-			{ actorId, action: 'role.set', targetType: 'user', targetId: userId, details: { email: target.email, from: target.role, to: role } },
+			{
+				actorId,
+				action: 'role.set',
+				targetType: 'user',
+				targetId: userId,
+				details: { email: target.email, from: target.role, to: role }
+			},
 			tx
 		);
 		return { ok: true as const, from: target.role, to: role };

@@ -5,7 +5,6 @@ import { mkdirSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import * as schema from './schema';
 
-
 /**
  * Opens the SQLite file with our pragmas. WAL with synchronous=NORMAL: every commit is
  * consistent, and a power loss may lose only the last commits (never corrupts).

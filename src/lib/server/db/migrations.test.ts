@@ -43,38 +43,63 @@ describe('migrations 0002 (listing columns), 0003 (sweep metrics) and 0004 (page
 
 		const { sqlite } = openDatabase(file);
 		const rows = sqlite
-			.prepare('SELECT id, listed_revision_id, listed_lo_hz, listed_hi_hz, build_reports, search_rowid FROM designs ORDER BY id')
+			.prepare(
+				'SELECT id, listed_revision_id, listed_lo_hz, listed_hi_hz, build_reports, search_rowid FROM designs ORDER BY id'
+			)
 			.all() as Record<string, unknown>[];
-		expect(rows[0]).toMatchObject({ id: 'd1', listed_revision_id: 'r1', listed_lo_hz: 430e6, listed_hi_hz: 440e6, build_reports: 2 });
+		expect(rows[0]).toMatchObject({
+			id: 'd1',
+			listed_revision_id: 'r1',
+			listed_lo_hz: 430e6,
+			listed_hi_hz: 440e6,
+			build_reports: 2
+		});
 		expect(rows[1]).toMatchObject({ id: 'd2', listed_revision_id: null, build_reports: 0 });
 		expect(new Set(rows.map((r) => r.search_rowid)).size).toBe(2);
 		// The page stamp: one row, moved on by writes to what pages show.
-		const stamp = () => (sqlite.prepare('SELECT stamp FROM page_stamp').all() as { stamp: number }[]).map((s) => s.stamp);
+		const stamp = () =>
+			(sqlite.prepare('SELECT stamp FROM page_stamp').all() as { stamp: number }[]).map(
+				(s) => s.stamp
+			);
 		const [before] = stamp();
 		expect(stamp()).toHaveLength(1);
 		sqlite.exec(`UPDATE designs SET title = 'Old helix, rewound' WHERE id = 'd1'`);
 		expect(stamp()).toEqual([before + 1]);
 		const hit = sqlite
-			.prepare('SELECT d.slug FROM design_search h JOIN designs d ON d.search_rowid = h.rowid WHERE design_search MATCH ?')
+			.prepare(
+				'SELECT d.slug FROM design_search h JOIN designs d ON d.search_rowid = h.rowid WHERE design_search MATCH ?'
+			)
 			.all('"tinplate"*');
 		expect(hit).toEqual([{ slug: 'old-helix' }]);
 
 		// Sweep metrics: the analysis without its series, for old rows and new ones.
 		const metricsOf = (id: string) =>
-			JSON.parse((sqlite.prepare('SELECT metrics FROM measurements WHERE id = ?').get(id) as { metrics: string }).metrics);
+			JSON.parse(
+				(
+					sqlite.prepare('SELECT metrics FROM measurements WHERE id = ?').get(id) as {
+						metrics: string;
+					}
+				).metrics
+			);
 		expect(metricsOf('m3')).toEqual({ min_vswr: 1.2 });
 		sqlite.exec(`INSERT INTO measurements (id, revision_id, uploader_id, kind, instrument, file_key, file_name, file_type, file_size, analysis)
 			VALUES ('m4', 'r2', 'u1', 'measurement', 'vna', 'k', 'f.s1p', 't', 1, '{"points":3,"series":[[1,2]]}')`);
 		expect(metricsOf('m4')).toEqual({ points: 3 });
 
 		// A deleted design leaves no index row behind for a later design to inherit.
-		sqlite.exec(`DELETE FROM measurements; DELETE FROM revisions; DELETE FROM designs WHERE id = 'd1'`);
+		sqlite.exec(
+			`DELETE FROM measurements; DELETE FROM revisions; DELETE FROM designs WHERE id = 'd1'`
+		);
 		expect(sqlite.prepare('SELECT count(*) AS n FROM design_search').get()).toEqual({ n: 0 });
 		sqlite.exec(`INSERT INTO designs (id, slug, title, family, polarization, owner_id, created_at, updated_at)
 			VALUES ('d3', 'new-one', 'New', 'patch', 'linear', 'u1', ${now}, ${now})`);
-		const d3 = sqlite.prepare(`SELECT search_rowid AS n FROM designs WHERE id = 'd3'`).get() as { n: number };
+		const d3 = sqlite.prepare(`SELECT search_rowid AS n FROM designs WHERE id = 'd3'`).get() as {
+			n: number;
+		};
 		expect(d3.n).toBeGreaterThan(0);
-		expect(sqlite.prepare('SELECT count(*) AS n FROM designs WHERE search_rowid = ?').get(d3.n)).toEqual({ n: 1 });
+		expect(
+			sqlite.prepare('SELECT count(*) AS n FROM designs WHERE search_rowid = ?').get(d3.n)
+		).toEqual({ n: 1 });
 		expect(sqlite.pragma('integrity_check', { simple: true })).toBe('ok');
 		sqlite.close();
 	});

@@ -27,7 +27,10 @@ export const users = sqliteTable('users', {
 	disabledAt: integer('disabled_at', { mode: 'timestamp_ms' }),
 	notifyOnSubmit: integer('notify_on_submit', { mode: 'boolean' }).notNull().default(false),
 	notifyOnFeedback: integer('notify_on_feedback', { mode: 'boolean' }).notNull().default(true),
-	followedFamilies: text('followed_families', { mode: 'json' }).$type<string[]>().notNull().default([]),
+	followedFamilies: text('followed_families', { mode: 'json' })
+		.$type<string[]>()
+		.notNull()
+		.default([]),
 	isDemo: integer('is_demo', { mode: 'boolean' }).notNull().default(false),
 	createdAt: createdAt()
 });
@@ -75,10 +78,16 @@ export const auditLog = sqliteTable(
 		action: text('action').notNull(),
 		targetType: text('target_type').notNull(),
 		targetId: text('target_id').notNull(),
-		details: text('details', { mode: 'json' }).$type<Record<string, unknown>>().notNull().default({}),
+		details: text('details', { mode: 'json' })
+			.$type<Record<string, unknown>>()
+			.notNull()
+			.default({}),
 		createdAt: createdAt()
 	},
-	(t) => [index('audit_created_idx').on(t.createdAt), index('audit_target_idx').on(t.targetType, t.targetId)]
+	(t) => [
+		index('audit_created_idx').on(t.createdAt),
+		index('audit_target_idx').on(t.targetType, t.targetId)
+	]
 );
 
 export const DESIGN_STATUSES = ['active', 'retired'] as const;

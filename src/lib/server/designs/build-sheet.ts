@@ -58,8 +58,7 @@ export class BuildSheetError extends Error {
 }
 
 const PAPER_SIZES = { a4: [595.28, 841.89], letter: [612, 792] } as const;
-const CALIBRATION_TEXT =
-	'Print at 100 % (no fit-to-page). Check: this bar must measure 50.0 mm.';
+const CALIBRATION_TEXT = 'Print at 100 % (no fit-to-page). Check: this bar must measure 50.0 mm.';
 const MARGIN = 36;
 const FOOTER = 24;
 /** Beyond this a length is split into so many parts that a rule is the better tool. */
@@ -122,7 +121,6 @@ export function isLengthRow(row: BuildSheetRow): boolean {
 		row.value_mm > 0
 	);
 }
-
 
 class Sheet {
 	page!: PDFPage;

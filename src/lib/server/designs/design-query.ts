@@ -4,7 +4,10 @@ import { FAMILY_VALUES, POLARIZATION_VALUES } from '$lib/schemas/design';
 import type { DesignQuery } from './search';
 
 /** Reads listing filters from a query string; unknown values are dropped with a note, never a 500. */
-export function parseDesignQuery(params: URLSearchParams): { query: DesignQuery; problems: string[] } {
+export function parseDesignQuery(params: URLSearchParams): {
+	query: DesignQuery;
+	problems: string[];
+} {
 	const problems: string[] = [];
 	const query: DesignQuery = {};
 	const q = params.get('q')?.trim();

@@ -18,20 +18,42 @@ let author: SessionUser;
 let other: SessionUser;
 
 async function member(email: string) {
-	const a = (await createAccount({ email, displayName: email.split('@')[0], password: 'long enough pass' }))!;
+	const a = (await createAccount({
+		email,
+		displayName: email.split('@')[0],
+		password: 'long enough pass'
+	}))!;
 	db.update(users).set({ emailVerifiedAt: new Date() }).where(eq(users.id, a.id)).run();
 	return toSessionUser(db.select().from(users).where(eq(users.id, a.id)).get()!);
 }
 
-const meta = (title: string, slug?: string) => ({ title, slug, family: 'biquad' as const, polarization: 'linear' as const, summary: 'A test design.' });
+const meta = (title: string, slug?: string) => ({
+	title,
+	slug,
+	family: 'biquad' as const,
+	polarization: 'linear' as const,
+	summary: 'A test design.'
+});
 
 function content(notes = 'Cut the copper wire and bend it into two squares.'): RevisionContent {
 	return {
 		...starterContent(2.45e9),
 		parameters: [{ key: 'vf', label: 'Velocity factor', value: 0.95 }],
 		rows: [
-			{ key: 'side', label: 'Element side', formula: 'lambda / 4 * vf', kind: 'resonant', tolerance_mm: 0.2 },
-			{ key: 'wire_d', label: 'Wire diameter', formula: '1.6 mm', kind: 'material', catalogue: 'awg' }
+			{
+				key: 'side',
+				label: 'Element side',
+				formula: 'lambda / 4 * vf',
+				kind: 'resonant',
+				tolerance_mm: 0.2
+			},
+			{
+				key: 'wire_d',
+				label: 'Wire diameter',
+				formula: '1.6 mm',
+				kind: 'material',
+				catalogue: 'awg'
+			}
 		],
 		notes
 	};
@@ -65,7 +87,11 @@ describe('designs and revisions', () => {
 	});
 
 	it('freezes content on submit: every write path then answers 409 and nothing changes', () => {
-		const { slug, revisionId } = createDesign(author, meta('Frozen biquad'), content('original notes'));
+		const { slug, revisionId } = createDesign(
+			author,
+			meta('Frozen biquad'),
+			content('original notes')
+		);
 		submitRevision(author, revisionId);
 		expectDomain(() => saveDraft(author, revisionId, content('tampered notes')), 409);
 		expectDomain(() => submitRevision(author, revisionId), 409);
@@ -78,7 +104,12 @@ describe('designs and revisions', () => {
 
 	it('refuses to submit while a row has an error, but saves the draft', () => {
 		const bad = content();
-		bad.rows.push({ key: 'broken', label: 'Broken', formula: 'lambda / nowhere', kind: 'resonant' });
+		bad.rows.push({
+			key: 'broken',
+			label: 'Broken',
+			formula: 'lambda / nowhere',
+			kind: 'resonant'
+		});
 		const { revisionId } = createDesign(author, meta('Broken biquad'), bad);
 		try {
 			submitRevision(author, revisionId);
@@ -87,11 +118,17 @@ describe('designs and revisions', () => {
 			expect((e as DomainError).status).toBe(422);
 			expect((e as DomainError).message).toContain('broken');
 		}
-		expect(db.select().from(revisions).where(eq(revisions.id, revisionId)).get()!.state).toBe('draft');
+		expect(db.select().from(revisions).where(eq(revisions.id, revisionId)).get()!.state).toBe(
+			'draft'
+		);
 	});
 
 	it('a new revision is a copy of the newest one, numbered on; withdraw only from submitted', () => {
-		const { slug, revisionId } = createDesign(author, meta('Copied biquad'), content('notes of r1'));
+		const { slug, revisionId } = createDesign(
+			author,
+			meta('Copied biquad'),
+			content('notes of r1')
+		);
 		submitRevision(author, revisionId);
 		const design = getDesignBySlug(slug)!;
 		expectDomain(() => startRevision(other, design), 403);
@@ -108,12 +145,18 @@ describe('designs and revisions', () => {
 
 describe('search', () => {
 	it('finds published designs by a word in their notes, with a highlighted snippet', () => {
-		const { revisionId } = createDesign(author, meta('Searchable biquad'), content('Use a tinplate reflector of 123 mm.'));
+		const { revisionId } = createDesign(
+			author,
+			meta('Searchable biquad'),
+			content('Use a tinplate reflector of 123 mm.')
+		);
 		expect(searchDesigns({ q: 'tinplate' }).total).toBe(0); // drafts are not indexed
 		submitRevision(author, revisionId);
 		const found = searchDesigns({ q: 'tinplate' });
 		expect(found.items.map((i) => i.slug)).toEqual(['searchable-biquad']);
-		expect(found.items[0].snippet?.some((p) => p.hit && p.text.toLowerCase() === 'tinplate')).toBe(true);
+		expect(found.items[0].snippet?.some((p) => p.hit && p.text.toLowerCase() === 'tinplate')).toBe(
+			true
+		);
 		expect(searchDesigns({ q: 'tinpl' }).total).toBe(1); // prefix
 		expect(searchDesigns({ q: 'tinplate', family: 'patch' }).total).toBe(0);
 		expect(searchDesigns({ q: 'tinplate', containsHz: 2.45e9 }).total).toBe(1);

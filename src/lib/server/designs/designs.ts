@@ -1,7 +1,12 @@
 import { eq } from 'drizzle-orm';
 import { db } from '../db';
 import { designs, revisions } from '../db/schema';
-import { designMetaSchema, revisionContentSchema, type DesignMeta, type RevisionContent } from '$lib/schemas/design';
+import {
+	designMetaSchema,
+	revisionContentSchema,
+	type DesignMeta,
+	type RevisionContent
+} from '$lib/schemas/design';
 import { newId } from '../accounts/accounts';
 import { DomainError } from '../http/errors';
 import { slugify } from './slug';
@@ -59,7 +64,16 @@ export function createDesign(
 			})
 			.run();
 		tx.insert(revisions)
-			.values({ id: revisionId, designId, number: 1, authorId: author.id, state: 'draft', createdAt: now, updatedAt: now, ...revisionColumns(content) })
+			.values({
+				id: revisionId,
+				designId,
+				number: 1,
+				authorId: author.id,
+				state: 'draft',
+				createdAt: now,
+				updatedAt: now,
+				...revisionColumns(content)
+			})
 			.run();
 	});
 	return { designId, slug, revisionId };
@@ -70,8 +84,15 @@ export function starterContent(hz: number): RevisionContent {
 	return {
 		design_frequency_hz: hz,
 		parameters: [],
-		rows: [{ key: 'quarter_wave', label: 'Quarter wavelength', formula: 'lambda / 4', kind: 'resonant' }],
-		claim: { centre_hz: hz, band_lo_hz: Math.round(hz * 0.98), band_hi_hz: Math.round(hz * 1.02), vswr_max: 2 },
+		rows: [
+			{ key: 'quarter_wave', label: 'Quarter wavelength', formula: 'lambda / 4', kind: 'resonant' }
+		],
+		claim: {
+			centre_hz: hz,
+			band_lo_hz: Math.round(hz * 0.98),
+			band_hi_hz: Math.round(hz * 1.02),
+			vswr_max: 2
+		},
 		notes: '',
 		change_note: 'First draft.'
 	};

@@ -32,8 +32,7 @@ describe('tableForViewJson', () => {
 			view(2.45e9, { units: 'in' }),
 			view(2.45e9, { band: [2.4e9, 2.5e9] })
 		];
-		for (const v of views)
-			expect(tableForViewJson(r, v)).toBe(JSON.stringify(tableForView(r, v)));
+		for (const v of views) expect(tableForViewJson(r, v)).toBe(JSON.stringify(tableForView(r, v)));
 		// [calc] λ/4 at 5.8 GHz = 299792458 / 5.8e9 / 4 = 12.922 mm
 		const at58 = JSON.parse(tableForViewJson(r, view(5.8e9)));
 		expect(at58.rows[0].value_mm).toBeCloseTo((C / 5.8e9 / 4) * 1000, 6);
@@ -51,16 +50,12 @@ describe('tableForViewJson', () => {
 			{ title: 'Draft answers', family: 'biquad', polarization: 'linear', summary: '' },
 			content
 		);
-		const before = JSON.parse(
-			tableForViewJson(getRevisionById(revisionId)!, view(2.45e9))
-		);
+		const before = JSON.parse(tableForViewJson(getRevisionById(revisionId)!, view(2.45e9)));
 		saveDraft(author, revisionId, {
 			...content,
 			rows: [{ ...content.rows[0], formula: 'lambda / 2' }]
 		});
-		const after = JSON.parse(
-			tableForViewJson(getRevisionById(revisionId)!, view(2.45e9))
-		);
+		const after = JSON.parse(tableForViewJson(getRevisionById(revisionId)!, view(2.45e9)));
 		// [calc] λ/2 = 2 × λ/4
 		expect(after.rows[0].value_mm).toBeCloseTo(2 * before.rows[0].value_mm, 9);
 	});

@@ -1,4 +1,11 @@
-import { compileTable, evaluateTable, TableInputError, type CompiledTable, type EvaluateOptions, type TableResult } from '$lib/rf/tables/table';
+import {
+	compileTable,
+	evaluateTable,
+	TableInputError,
+	type CompiledTable,
+	type EvaluateOptions,
+	type TableResult
+} from '$lib/rf/tables/table';
 import type { RevisionContent } from '$lib/schemas/design';
 import { DomainError } from '../http/errors';
 import { toTableDefinition, unknownCatalogues } from '$lib/rf/tables/revision-table';
@@ -39,7 +46,9 @@ export function computeRevision(r: RevisionKey, opts: EvaluateOptions): TableRes
 	const { table, unknown } = compiledFor(r);
 	const result = evaluateTable(table, opts);
 	for (const { key, catalogue } of unknown) {
-		result.rows.find((row) => row.key === key)?.warnings.push(`Unknown stock catalogue "${catalogue}"; not snapped.`);
+		result.rows
+			.find((row) => row.key === key)
+			?.warnings.push(`Unknown stock catalogue "${catalogue}"; not snapped.`);
 	}
 	return result;
 }
@@ -49,7 +58,11 @@ export function computeRevision(r: RevisionKey, opts: EvaluateOptions): TableRes
  * build sheet, the CSV export and the dimensions API all call this.
  */
 export function tableForView(r: RevisionKey, view: ViewState): TableResult {
-	return computeRevision(r, { frequencyHz: view.frequencyHz, units: view.units, bandHz: view.band });
+	return computeRevision(r, {
+		frequencyHz: view.frequencyHz,
+		units: view.units,
+		bandHz: view.band
+	});
 }
 
 // The API's answer for one view of a submitted revision never changes either, so its JSON text is
@@ -74,7 +87,8 @@ export function assertCompilable(content: RevisionContent): void {
 	try {
 		compileTable(toTableDefinition(content));
 	} catch (e) {
-		if (e instanceof TableInputError) throw new DomainError(422, `${e.field}: ${e.message}`, e.field);
+		if (e instanceof TableInputError)
+			throw new DomainError(422, `${e.field}: ${e.message}`, e.field);
 		throw e;
 	}
 }

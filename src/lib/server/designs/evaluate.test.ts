@@ -3,7 +3,11 @@ import { C } from '$lib/rf/units/constants';
 import { evaluateBody } from './evaluate';
 import { DomainError } from '../http/errors';
 
-const body = (frequency_hz: unknown, formula = 'lambda / 4', extra: Record<string, unknown> = {}) => ({
+const body = (
+	frequency_hz: unknown,
+	formula = 'lambda / 4',
+	extra: Record<string, unknown> = {}
+) => ({
 	frequency_hz,
 	parameters: [{ key: 'vf', value: 0.66 }],
 	rows: [
@@ -50,8 +54,12 @@ describe('evaluateBody (the evaluate API, with its compiled-table cache)', () =>
 		const warm = refusal(() => evaluateBody(body(-5, 'lambda / 8')));
 		expect(cold).toEqual(warm);
 		expect(warm).toMatchObject({ status: 400, field: 'frequency_hz' });
-		expect(refusal(() => evaluateBody(body(1e9, 'lambda / 8', { units: 'cm' })))).toMatchObject({ field: 'units' });
-		expect(refusal(() => evaluateBody(body(1e9, 'lambda / 8', { band_hz: [2e9, 1e9] })))).toMatchObject({ field: 'band_hz' });
+		expect(refusal(() => evaluateBody(body(1e9, 'lambda / 8', { units: 'cm' })))).toMatchObject({
+			field: 'units'
+		});
+		expect(
+			refusal(() => evaluateBody(body(1e9, 'lambda / 8', { band_hz: [2e9, 1e9] })))
+		).toMatchObject({ field: 'band_hz' });
 	});
 
 	it('refuses a bad table with the row named, and bodies that are not objects', () => {

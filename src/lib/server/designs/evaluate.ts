@@ -3,8 +3,18 @@
  * validated and compiled before is found by its JSON (see tableKey), so a client retyping the
  * frequency pays only for evaluation (the table is parsed and checked once, not per keystroke).
  */
-import { parseEvaluateOptions, parseEvaluateRequest, toTableInput } from '$lib/rf/tables/evaluate-request';
-import { compileTable, evaluateTable, TableInputError, type CompiledTable, type TableResult } from '$lib/rf/tables/table';
+import {
+	parseEvaluateOptions,
+	parseEvaluateRequest,
+	toTableInput
+} from '$lib/rf/tables/evaluate-request';
+import {
+	compileTable,
+	evaluateTable,
+	TableInputError,
+	type CompiledTable,
+	type TableResult
+} from '$lib/rf/tables/table';
 import { DomainError } from '../http/errors';
 import { hashKey } from '../http/hash';
 import { LRUCache } from 'lru-cache';

@@ -5,13 +5,18 @@ import { contentOf } from './content';
 import { renderBuildSheet } from './build-sheet';
 
 const BUILD_SHEET_CAUTIONS = [
-	'RF exposure: keep people away from a transmitting antenna; follow your regulator\'s exposure limits.',
+	"RF exposure: keep people away from a transmitting antenna; follow your regulator's exposure limits.",
 	'A high-gain antenna can push a legal transmitter over the EIRP limit; amateur bands need a licence.',
 	'Workshop: solder fumes and burns, sharp sheet and tin edges (wear gloves), clamp work and wear eye protection when drilling.',
 	'Masts: never near power lines; follow local building and electrical codes. Local rules come first.'
 ];
 
-export function buildSheetPdf(design: Design, r: Revision, table: TableResult, paper: 'a4' | 'letter') {
+export function buildSheetPdf(
+	design: Design,
+	r: Revision,
+	table: TableResult,
+	paper: 'a4' | 'letter'
+) {
 	return renderBuildSheet({
 		title: design.title,
 		slug: design.slug,
@@ -42,11 +47,37 @@ export function tableCsv(table: TableResult): string {
 		if (/^[=+\-@\t\r]/.test(s) && Number.isNaN(Number(s))) s = `'${s}`;
 		return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 	};
-	const head = ['key', 'label', 'kind', 'value', 'unit', 'value_mm', 'display', 'stock', 'stock_mm', 'hz_per_0_1mm', 'warnings', 'error'];
+	const head = [
+		'key',
+		'label',
+		'kind',
+		'value',
+		'unit',
+		'value_mm',
+		'display',
+		'stock',
+		'stock_mm',
+		'hz_per_0_1mm',
+		'warnings',
+		'error'
+	];
 	const lines = [head.join(',')];
 	for (const r of table.rows) {
 		lines.push(
-			[r.key, r.label, r.kind, r.value, r.unit, r.value_mm, r.display, r.stock?.name, r.stock?.value_mm, r.sensitivity?.hz_per_0_1mm, r.warnings.join('; '), r.error?.message]
+			[
+				r.key,
+				r.label,
+				r.kind,
+				r.value,
+				r.unit,
+				r.value_mm,
+				r.display,
+				r.stock?.name,
+				r.stock?.value_mm,
+				r.sensitivity?.hz_per_0_1mm,
+				r.warnings.join('; '),
+				r.error?.message
+			]
 				.map(cell)
 				.join(',')
 		);

@@ -7,8 +7,16 @@ import { isSlug } from './slug';
 
 // The lookups every design page and API call makes, prepared once (building a drizzle query costs
 // more than running it).
-const designBySlug = db.select().from(designs).where(eq(designs.slug, sql.placeholder('slug'))).prepare();
-const revisionById = db.select().from(revisions).where(eq(revisions.id, sql.placeholder('id'))).prepare();
+const designBySlug = db
+	.select()
+	.from(designs)
+	.where(eq(designs.slug, sql.placeholder('slug')))
+	.prepare();
+const revisionById = db
+	.select()
+	.from(revisions)
+	.where(eq(revisions.id, sql.placeholder('id')))
+	.prepare();
 const revisionsOfDesign = db
 	.select({
 		id: revisions.id,
@@ -52,7 +60,12 @@ export function defaultRevision(design: Design): Revision | null {
 const revisionByNumber = db
 	.select()
 	.from(revisions)
-	.where(and(eq(revisions.designId, sql.placeholder('designId')), eq(revisions.number, sql.placeholder('number'))))
+	.where(
+		and(
+			eq(revisions.designId, sql.placeholder('designId')),
+			eq(revisions.number, sql.placeholder('number'))
+		)
+	)
 	.prepare();
 
 /** Whether a number can name a revision at all (checked before any lookup). */
@@ -76,7 +89,9 @@ const revisionHeadBySlug = db
 	})
 	.from(revisions)
 	.innerJoin(designs, eq(designs.id, revisions.designId))
-	.where(and(eq(designs.slug, sql.placeholder('slug')), eq(revisions.number, sql.placeholder('number'))))
+	.where(
+		and(eq(designs.slug, sql.placeholder('slug')), eq(revisions.number, sql.placeholder('number')))
+	)
 	.prepare();
 
 /**
@@ -89,7 +104,10 @@ export function getRevisionHead(slug: string, number: number) {
 }
 
 /** Drafts are private to their author; every other state is public. */
-export function canRead(user: SessionUser | null, r: Pick<Revision, 'state' | 'authorId'>): boolean {
+export function canRead(
+	user: SessionUser | null,
+	r: Pick<Revision, 'state' | 'authorId'>
+): boolean {
 	return r.state !== 'draft' || r.authorId === user?.id;
 }
 

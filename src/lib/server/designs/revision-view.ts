@@ -34,7 +34,10 @@ export function editableDraft(slug: string, n: string) {
 	const r = revision!;
 	if (r.authorId !== user.id) error(403, 'Only the author can edit this draft.');
 	if (r.state !== 'draft') {
-		error(409, `r${r.number} is ${r.state}; its content is frozen. Start a new revision to change it.`);
+		error(
+			409,
+			`r${r.number} is ${r.state}; its content is frozen. Start a new revision to change it.`
+		);
 	}
 	return { user, design, r };
 }
@@ -89,4 +92,3 @@ export function revisionPageData(design: Design, r: Revision, url: URL, user: Se
 		...measurementsPanelData(design, r, user)
 	};
 }
-

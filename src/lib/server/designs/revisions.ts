@@ -15,11 +15,18 @@ import type { SessionUser } from '../accounts/auth';
 function assertEditable(user: SessionUser, r: Revision): void {
 	if (r.authorId !== user.id) throw new DomainError(403, 'Only the author can edit this draft.');
 	if (r.state !== 'draft') {
-		throw new DomainError(409, `r${r.number} is ${r.state}; its content is frozen. Start a new revision to change it.`);
+		throw new DomainError(
+			409,
+			`r${r.number} is ${r.state}; its content is frozen. Start a new revision to change it.`
+		);
 	}
 }
 
-export function saveDraft(user: SessionUser, revisionId: string, contentIn: RevisionContent): Revision {
+export function saveDraft(
+	user: SessionUser,
+	revisionId: string,
+	contentIn: RevisionContent
+): Revision {
 	const content = validated(revisionContentSchema, contentIn);
 	assertCompilable(content);
 	return db.transaction((tx) => {
@@ -29,12 +36,16 @@ export function saveDraft(user: SessionUser, revisionId: string, contentIn: Revi
 		const updated = tx
 			.update(revisions)
 			// Strictly later than the last save: compiled drafts are cached by this time (dimensions.ts).
-			.set({ ...revisionColumns(content), updatedAt: new Date(Math.max(Date.now(), r.updatedAt.getTime() + 1)) })
+			.set({
+				...revisionColumns(content),
+				updatedAt: new Date(Math.max(Date.now(), r.updatedAt.getTime() + 1))
+			})
 			// The state in the WHERE makes a concurrent submit win cleanly.
 			.where(and(eq(revisions.id, r.id), eq(revisions.state, 'draft')))
 			.returning()
 			.get();
-		if (!updated) throw new DomainError(409, 'This revision was submitted meanwhile; its content is frozen.');
+		if (!updated)
+			throw new DomainError(409, 'This revision was submitted meanwhile; its content is frozen.');
 		return updated;
 	});
 }
@@ -63,7 +74,16 @@ export function submitRevision(user: SessionUser, revisionId: string, now = new 
 			.get();
 		if (!row) throw new DomainError(409, 'This revision is no longer a draft.');
 		tx.update(designs).set({ updatedAt: now }).where(eq(designs.id, r.designId)).run();
-		audit({ actorId: user.id, action: 'revision.submit', targetType: 'revision', targetId: r.id, details: { number: r.number } }, tx);
+		audit(
+			{
+				actorId: user.id,
+				action: 'revision.submit',
+				targetType: 'revision',
+				targetId: r.id,
+				details: { number: r.number }
+			},
+			tx
+		);
 		notifySubmitted(row, tx);
 		return row;
 	});
@@ -74,8 +94,13 @@ export function submitRevision(user: SessionUser, revisionId: string, now = new 
 export function withdrawRevision(user: SessionUser, revisionId: string): Revision {
 	const r = getRevisionById(revisionId);
 	if (!r) throw new DomainError(404, 'No such revision.');
-	if (r.authorId !== user.id) throw new DomainError(403, 'Only the author can withdraw a revision.');
-	if (r.state !== 'submitted') throw new DomainError(409, `Only a submitted revision can be withdrawn; r${r.number} is ${r.state}.`);
+	if (r.authorId !== user.id)
+		throw new DomainError(403, 'Only the author can withdraw a revision.');
+	if (r.state !== 'submitted')
+		throw new DomainError(
+			409,
+			`Only a submitted revision can be withdrawn; r${r.number} is ${r.state}.`
+		);
 	const row = db.transaction((tx) => {
 		const updated = tx
 			.update(revisions)
@@ -84,7 +109,16 @@ export function withdrawRevision(user: SessionUser, revisionId: string): Revisio
 			.returning()
 			.get();
 		if (!updated) throw new DomainError(409, 'This revision changed meanwhile.');
-		audit({ actorId: user.id, action: 'revision.withdraw', targetType: 'revision', targetId: r.id, details: { number: r.number } }, tx);
+		audit(
+			{
+				actorId: user.id,
+				action: 'revision.withdraw',
+				targetType: 'revision',
+				targetId: r.id,
+				details: { number: r.number }
+			},
+			tx
+		);
 		return updated;
 	});
 	reindexDesign(r.designId);
@@ -93,7 +127,8 @@ export function withdrawRevision(user: SessionUser, revisionId: string): Revisio
 
 /** Opens the next revision as a copy of the newest one (or returns the open draft). */
 export function startRevision(user: SessionUser, design: Design, now = new Date()): Revision {
-	if (design.ownerId !== user.id) throw new DomainError(403, 'Only the design owner can start a new revision.');
+	if (design.ownerId !== user.id)
+		throw new DomainError(403, 'Only the design owner can start a new revision.');
 	return db.transaction((tx) => {
 		const newest = tx
 			.select()

@@ -26,7 +26,12 @@ const sweep = (f0MHz: number) => ({
 		notes: 'n',
 		target_frequency: String(f0MHz * 1e6)
 	},
-	file: { bytes: new TextEncoder().encode(touchstone(resonanceRows(f0MHz, 8, 50, f0MHz - 200, f0MHz + 200, 201))), name: 'b.s1p' }
+	file: {
+		bytes: new TextEncoder().encode(
+			touchstone(resonanceRows(f0MHz, 8, 50, f0MHz - 200, f0MHz + 200, 201))
+		),
+		name: 'b.s1p'
+	}
 });
 
 beforeAll(async () => {
@@ -46,7 +51,12 @@ describe('listing columns kept by triggers', () => {
 		const r1 = designAt(author, 'Listing trigger probe', 2.45e9, [2.4e9, 2.5e9]);
 		const slug = 'listing-trigger-probe';
 		expect(listed(slug).listedRevisionId).toBe(r1.id);
-		submitReview(reviewer, r1.id, { verdict: 'approve', summary: 'Built and checked.' }, { notify: false });
+		submitReview(
+			reviewer,
+			r1.id,
+			{ verdict: 'approve', summary: 'Built and checked.' },
+			{ notify: false }
+		);
 		const r2 = startRevision(author, getDesignBySlug(slug)!);
 		expect(listed(slug).listedRevisionId).toBe(r1.id); // a draft is never listed
 		submitRevision(author, r2.id);
@@ -69,7 +79,10 @@ describe('listing columns kept by triggers', () => {
 		await addMeasurement(author, a, sweep(868)); // the author's own sweep is a measurement, not a report
 		expect(listed('reports-sort-beta').buildReports).toBe(2);
 		expect(listed('reports-sort-alpha').buildReports).toBe(1);
-		const sorted = searchDesigns({ q: 'reports sort', sort: 'reports' }).items.map((i) => [i.slug, i.buildReports]);
+		const sorted = searchDesigns({ q: 'reports sort', sort: 'reports' }).items.map((i) => [
+			i.slug,
+			i.buildReports
+		]);
 		expect(sorted).toEqual([
 			['reports-sort-beta', 2],
 			['reports-sort-alpha', 1]
@@ -86,7 +99,9 @@ describe('search paging and snippets', () => {
 		expect(third.total).toBe(7);
 		expect(first.items).toHaveLength(3);
 		expect(third.items).toHaveLength(1);
-		const all = [1, 2, 3].flatMap((page) => searchDesigns({ q: 'paging probe', pageSize: 3, page }).items);
+		const all = [1, 2, 3].flatMap(
+			(page) => searchDesigns({ q: 'paging probe', pageSize: 3, page }).items
+		);
 		expect(new Set(all.map((i) => i.slug)).size).toBe(7);
 		for (const item of all) expect(item.snippet?.some((p) => p.hit)).toBe(true);
 	});

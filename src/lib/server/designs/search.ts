@@ -161,6 +161,11 @@ function indexedTexts(rows: ListingRow[]): Map<number, string[]> {
 	if (!rows.length) return new Map();
 	const found = prepared(
 		'SELECT rowid AS id, notes, summary, title FROM design_search WHERE rowid IN (SELECT value FROM json_each(?))'
-	).all(JSON.stringify(rows.map((r) => r.search_rowid))) as { id: number; notes: string; summary: string; title: string }[];
+	).all(JSON.stringify(rows.map((r) => r.search_rowid))) as {
+		id: number;
+		notes: string;
+		summary: string;
+		title: string;
+	}[];
 	return new Map(found.map((t) => [t.id, [t.notes, t.summary, t.title]]));
 }

@@ -18,12 +18,20 @@ describe('makeSnippet', () => {
 		const parts = makeSnippet([text], ['copper', 'balun', 'choke'], 6);
 		expect(hits(parts)).toEqual(['copper', 'balun', 'choke']);
 		expect(plain(parts)).toMatch(/^….*…$/);
-		expect(plain(parts).split(/\s+/).filter((w) => /\w/.test(w))).toHaveLength(6);
+		expect(
+			plain(parts)
+				.split(/\s+/)
+				.filter((w) => /\w/.test(w))
+		).toHaveLength(6);
 	});
 
 	it('prefers the first text on a tie and falls back to later texts', () => {
-		expect(plain(makeSnippet(['notes mention helix', 'helix title'], ['helix']))).toBe('notes mention helix');
-		expect(plain(makeSnippet(['nothing here', 'A helix antenna'], ['helix']))).toBe('A helix antenna');
+		expect(plain(makeSnippet(['notes mention helix', 'helix title'], ['helix']))).toBe(
+			'notes mention helix'
+		);
+		expect(plain(makeSnippet(['nothing here', 'A helix antenna'], ['helix']))).toBe(
+			'A helix antenna'
+		);
 	});
 
 	it('is null when no word matches, and never matches inside a word', () => {

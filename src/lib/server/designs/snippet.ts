@@ -30,7 +30,11 @@ function tokens(text: string, terms: string[]): Token[] {
 	const out: Token[] = [];
 	for (const m of text.matchAll(WORD)) {
 		const folded = foldWord(m[0]);
-		out.push({ start: m.index, end: m.index + m[0].length, term: terms.findIndex((t) => folded.startsWith(t)) });
+		out.push({
+			start: m.index,
+			end: m.index + m[0].length,
+			term: terms.findIndex((t) => folded.startsWith(t))
+		});
 	}
 	return out;
 }
@@ -42,7 +46,7 @@ function bestWindow(toks: Token[], size: number): { from: number; score: number 
 		const seen = new Set<number>();
 		let hits = 0;
 		for (let i = from; i < Math.min(toks.length, from + size); i++) {
-			if (toks[i].term >= 0) seen.add(toks[i].term), hits++;
+			if (toks[i].term >= 0) (seen.add(toks[i].term), hits++);
 		}
 		const score = seen.size * 1000 + hits;
 		if (score > best.score) best = { from, score };
@@ -54,7 +58,11 @@ function bestWindow(toks: Token[], size: number): { from: number; score: number 
  * A snippet of at most `size` words from the best of `texts` (earlier texts win ties), with the
  * words that match marked; '…' where the text was cut. Null when no text has a matching word.
  */
-export function makeSnippet(texts: string[], queryWords: string[], size = 14): SnippetPart[] | null {
+export function makeSnippet(
+	texts: string[],
+	queryWords: string[],
+	size = 14
+): SnippetPart[] | null {
 	const terms = queryWords.map(foldWord).filter(Boolean);
 	let chosen: { text: string; toks: Token[]; from: number; score: number } | null = null;
 	for (const text of texts) {

@@ -36,7 +36,11 @@ function csvRows(text: string): string[][] {
 		.trim()
 		.split('\r\n')
 		.slice(2)
-		.map((line) => [...line.matchAll(/("([^"]|"")*"|[^,]*)(,|$)/g)].map((m) => m[1].replace(/^"|"$/g, '').replace(/""/g, '"')));
+		.map((line) =>
+			[...line.matchAll(/("([^"]|"")*"|[^,]*)(,|$)/g)].map((m) =>
+				m[1].replace(/^"|"$/g, '').replace(/""/g, '"')
+			)
+		);
 }
 
 describe('tableForView: page, API, CSV and PDF give the same rows', () => {
@@ -45,8 +49,20 @@ describe('tableForView: page, API, CSV and PDF give the same rows', () => {
 		const content = {
 			...starterContent(2.45e9),
 			rows: [
-				{ key: 'arm', label: 'Arm', formula: 'lambda / 4', kind: 'resonant' as const, tolerance_mm: 0.2 },
-				{ key: 'wire', label: 'Wire', formula: '1.6 mm', kind: 'material' as const, catalogue: 'awg' },
+				{
+					key: 'arm',
+					label: 'Arm',
+					formula: 'lambda / 4',
+					kind: 'resonant' as const,
+					tolerance_mm: 0.2
+				},
+				{
+					key: 'wire',
+					label: 'Wire',
+					formula: '1.6 mm',
+					kind: 'material' as const,
+					catalogue: 'awg'
+				},
 				{ key: 'gap', label: 'Gap', formula: 'arm / 10 + 1 mm', kind: 'structural' as const },
 				{ key: 'turns', label: 'Turns', formula: '4', kind: 'count' as const }
 			]
@@ -61,23 +77,42 @@ describe('tableForView: page, API, CSV and PDF give the same rows', () => {
 		const base = `/designs/${slug}/r/1`;
 
 		const page = (await pageLoad(event(base + query, slug))) as unknown as {
-			table: { frequency_hz: number; rows: { key: string; display: string; stock?: { name: string } }[] };
+			table: {
+				frequency_hz: number;
+				rows: { key: string; display: string; stock?: { name: string } }[];
+			};
 		};
-		const fromPage: Row[] = page.table.rows.map((r) => ({ key: r.key, display: r.display, stock: r.stock?.name ?? '' }));
+		const fromPage: Row[] = page.table.rows.map((r) => ({
+			key: r.key,
+			display: r.display,
+			stock: r.stock?.name ?? ''
+		}));
 		expect(page.table.frequency_hz).toBe(5.8e9);
 		expect(fromPage.map((r) => r.key)).toEqual(['arm', 'wire', 'gap', 'turns']);
 		// [calc] λ/4 at 5.8 GHz = 12.922 mm = 0.5087 in → 33/64 in (0.5156 in) to the nearest 1/64
 		expect(fromPage[0].display).toBe('33/64 in');
 		expect(fromPage[1].stock).toBe('AWG 14');
 
-		const api = await (await apiGet(event(`/api/v1/designs/${slug}/revisions/1/dimensions${query}`, slug))).json();
-		expect(api.rows.map((r: { key: string; display: string; stock?: { name: string } }) => ({ key: r.key, display: r.display, stock: r.stock?.name ?? '' }))).toEqual(fromPage);
+		const api = await (
+			await apiGet(event(`/api/v1/designs/${slug}/revisions/1/dimensions${query}`, slug))
+		).json();
+		expect(
+			api.rows.map((r: { key: string; display: string; stock?: { name: string } }) => ({
+				key: r.key,
+				display: r.display,
+				stock: r.stock?.name ?? ''
+			}))
+		).toEqual(fromPage);
 
 		const csv = csvRows(await (await csvGet(event(`${base}/table.csv${query}`, slug))).text());
 		// Columns: key, label, kind, value, unit, value_mm, display, stock, …
 		expect(csv.map((c) => ({ key: c[0], display: c[6], stock: c[7] }))).toEqual(fromPage);
 
-		const pdf = await pdfText(new Uint8Array(await (await pdfGet(event(`${base}/build-sheet.pdf${query}`, slug))).arrayBuffer()));
+		const pdf = await pdfText(
+			new Uint8Array(
+				await (await pdfGet(event(`${base}/build-sheet.pdf${query}`, slug))).arrayBuffer()
+			)
+		);
 		for (const r of fromPage) {
 			expect(pdf).toContain(`(${r.key})`);
 			expect(pdf).toContain(r.display);

@@ -23,7 +23,9 @@ export function firstProblem(form: SuperValidated<Record<string, unknown>>): {
 	message: string;
 } {
 	for (const [field, messages] of Object.entries(form.errors)) {
-		const text = Array.isArray(messages) ? messages[0] : (messages as { _errors?: string[] })?._errors?.[0];
+		const text = Array.isArray(messages)
+			? messages[0]
+			: (messages as { _errors?: string[] })?._errors?.[0];
 		if (text) return { field: field === '_errors' ? null : field, message: text };
 	}
 	return { field: null, message: 'Check the form and send it again.' };
@@ -42,7 +44,10 @@ export function actionFailure<X extends Record<string, unknown>>(e: unknown, ext
 }
 
 /** The same for a superforms page: on the field the error names when the form has it, else the form's message. */
-export function formFailure<T extends Record<string, unknown>>(form: SuperValidated<T>, e: unknown) {
+export function formFailure<T extends Record<string, unknown>>(
+	form: SuperValidated<T>,
+	e: unknown
+) {
 	if (!(e instanceof DomainError)) throw e;
 	if (e.field && e.field in form.data) {
 		return setError(form, e.field as never, e.message, { status: e.status });

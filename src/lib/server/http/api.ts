@@ -8,7 +8,11 @@ export function apiError(status: number, message: string, extra: Record<string, 
 /** A JSON response from text already serialized (SvelteKit's json() would encode it twice). */
 export function jsonText(body: string, headers: Record<string, string> = {}): Response {
 	return new Response(body, {
-		headers: { 'content-type': 'application/json', 'content-length': String(Buffer.byteLength(body)), ...headers }
+		headers: {
+			'content-type': 'application/json',
+			'content-length': String(Buffer.byteLength(body)),
+			...headers
+		}
 	});
 }
 
@@ -19,9 +23,11 @@ export async function readJson(request: Request, maxBytes = 256 * 1024): Promise
 		throw new DomainError(415, 'Send the body as JSON (Content-Type: application/json).', 'body');
 	}
 	const declared = Number(request.headers.get('content-length') ?? 0);
-	if (declared > maxBytes) throw new DomainError(413, `The body is larger than ${maxBytes / 1024} kB.`, 'body');
+	if (declared > maxBytes)
+		throw new DomainError(413, `The body is larger than ${maxBytes / 1024} kB.`, 'body');
 	const text = await request.text();
-	if (text.length > maxBytes) throw new DomainError(413, `The body is larger than ${maxBytes / 1024} kB.`, 'body');
+	if (text.length > maxBytes)
+		throw new DomainError(413, `The body is larger than ${maxBytes / 1024} kB.`, 'body');
 	try {
 		return JSON.parse(text);
 	} catch {
@@ -34,7 +40,8 @@ export async function handleApi(run: () => Promise<Response> | Response): Promis
 	try {
 		return await run();
 	} catch (e) {
-		if (e instanceof DomainError) return apiError(e.status, e.message, e.field ? { field: e.field } : {});
+		if (e instanceof DomainError)
+			return apiError(e.status, e.message, e.field ? { field: e.field } : {});
 		throw e;
 	}
 }

@@ -13,10 +13,7 @@ import { Doorkeeper } from './doorkeeper';
  * time it is asked for; each copy served gets a fresh CSP nonce. Signed-in readers, form posts,
  * client-side data requests and any response that sets a cookie or is not a 200 are never kept.
  */
-const CACHED_ROUTES: ReadonlySet<string> = new Set([
-	'/designs/[slug]',
-	'/designs/[slug]/r/[n]'
-]);
+const CACHED_ROUTES: ReadonlySet<string> = new Set(['/designs/[slug]', '/designs/[slug]/r/[n]']);
 
 /** Bounds: a 40-row design page is about 50 kB. */
 const MAX_ENTRIES = 1000;

@@ -4,12 +4,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { SMTPServer, type SMTPServerSession } from 'smtp-server';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import {
-	createMailer,
-	MailInputError,
-	type MailLogger,
-	type MailMessage
-} from './index';
+import { createMailer, MailInputError, type MailLogger, type MailMessage } from './index';
 import { listOutbox, OUTBOX_ID, parseEml } from './outbox';
 
 const FROM = 'noreply@bandwright.test';

@@ -12,7 +12,11 @@ let author: SessionUser;
 const people: Record<string, SessionUser> = {};
 
 async function person(email: string, role: Role) {
-	const a = (await createAccount({ email, displayName: email.split('@')[0], password: 'long enough pass' }))!;
+	const a = (await createAccount({
+		email,
+		displayName: email.split('@')[0],
+		password: 'long enough pass'
+	}))!;
 	db.update(users).set({ emailVerifiedAt: new Date(), role }).where(eq(users.id, a.id)).run();
 	return toSessionUser(db.select().from(users).where(eq(users.id, a.id)).get()!);
 }
@@ -21,23 +25,46 @@ const mails = (to: string) => db.select().from(mailQueue).where(eq(mailQueue.toA
 
 beforeAll(async () => {
 	author = await person('n-author@example.org', 'member');
-	for (const [name, role] of [['patchfan', 'reviewer'], ['everything', 'reviewer'], ['quiet', 'reviewer'], ['member', 'member']] as const) {
+	for (const [name, role] of [
+		['patchfan', 'reviewer'],
+		['everything', 'reviewer'],
+		['quiet', 'reviewer'],
+		['member', 'member']
+	] as const) {
 		people[name] = await person(`n-${name}@example.org`, role);
 	}
-	setNotificationSettings(people.patchfan.id, { notifyOnSubmit: true, notifyOnFeedback: true, followedFamilies: ['patch'] });
-	setNotificationSettings(people.everything.id, { notifyOnSubmit: true, notifyOnFeedback: true, followedFamilies: [] });
-	setNotificationSettings(people.member.id, { notifyOnSubmit: true, notifyOnFeedback: true, followedFamilies: [] });
+	setNotificationSettings(people.patchfan.id, {
+		notifyOnSubmit: true,
+		notifyOnFeedback: true,
+		followedFamilies: ['patch']
+	});
+	setNotificationSettings(people.everything.id, {
+		notifyOnSubmit: true,
+		notifyOnFeedback: true,
+		followedFamilies: []
+	});
+	setNotificationSettings(people.member.id, {
+		notifyOnSubmit: true,
+		notifyOnFeedback: true,
+		followedFamilies: []
+	});
 });
 
 describe('submission notices', () => {
 	it('mail opted-in reviewers who follow the family (or every family), in the submit transaction', () => {
 		const make = (family: 'patch' | 'dipole', title: string) => {
-			const { revisionId } = createDesign(author, { title, family, polarization: 'linear', summary: '' }, starterContent(5.8e9));
+			const { revisionId } = createDesign(
+				author,
+				{ title, family, polarization: 'linear', summary: '' },
+				starterContent(5.8e9)
+			);
 			submitRevision(author, revisionId);
 		};
 		make('patch', 'Patch for the notices');
 		make('dipole', 'Dipole for the notices');
-		expect(mails('n-patchfan@example.org').map((m) => m.subject)).toEqual(['Review wanted: Patch for the notices r1']);
+		expect(mails('n-patchfan@example.org').map((m) => m.subject)).toEqual([
+			'Review wanted: Patch for the notices r1'
+		]);
 		expect(mails('n-everything@example.org')).toHaveLength(2);
 		expect(mails('n-quiet@example.org')).toHaveLength(0);
 		// Members are not reviewers, whatever their settings say.
@@ -46,8 +73,16 @@ describe('submission notices', () => {
 	});
 
 	it('keeps only known families and strips CR/LF from header text', () => {
-		setNotificationSettings(people.quiet.id, { notifyOnSubmit: false, notifyOnFeedback: false, followedFamilies: ['patch', 'patch', 'bogus' as 'patch'] });
-		expect(notificationSettings(people.quiet.id)).toEqual({ notifyOnSubmit: false, notifyOnFeedback: false, followedFamilies: ['patch'] });
+		setNotificationSettings(people.quiet.id, {
+			notifyOnSubmit: false,
+			notifyOnFeedback: false,
+			followedFamilies: ['patch', 'patch', 'bogus' as 'patch']
+		});
+		expect(notificationSettings(people.quiet.id)).toEqual({
+			notifyOnSubmit: false,
+			notifyOnFeedback: false,
+			followedFamilies: ['patch']
+		});
 		expect(headerSafe('Title\r\nBcc: victim@example.org')).toBe('Title Bcc: victim@example.org');
 	});
 });

@@ -13,7 +13,11 @@ type Reader = Pick<typeof db, 'select'>;
 /** Header text from user input: no CR/LF (header injection), and a sane length. */
 export const headerSafe = (s: string) => s.replace(/[\r\n\u2028\u2029]+/g, ' ').slice(0, 150);
 
-const VERDICT_WORDS = { approve: 'approved', revise: 'returned for revision', reject: 'proposed to reject' };
+const VERDICT_WORDS = {
+	approve: 'approved',
+	revise: 'returned for revision',
+	reject: 'proposed to reject'
+};
 
 const reviewLink = (slug: string, n: number, hash = '') =>
 	`${publicOrigin()}/review/${slug}/${n}${hash}`;
@@ -30,7 +34,9 @@ export function notificationSettings(userId: string): NotificationSettings {
 	return {
 		notifyOnSubmit: row?.notifyOnSubmit ?? false,
 		notifyOnFeedback: row?.notifyOnFeedback ?? true,
-		followedFamilies: followed.filter((f): f is Family => (FAMILY_VALUES as readonly string[]).includes(f))
+		followedFamilies: followed.filter((f): f is Family =>
+			(FAMILY_VALUES as readonly string[]).includes(f)
+		)
 	};
 }
 
@@ -63,7 +69,9 @@ function submitRecipients(family: string, authorId: string, tx: Reader = db) {
 		)
 		.all()
 		.filter((u) => u.id !== authorId)
-		.filter((u) => !Array.isArray(u.followed) || u.followed.length === 0 || u.followed.includes(family));
+		.filter(
+			(u) => !Array.isArray(u.followed) || u.followed.length === 0 || u.followed.includes(family)
+		);
 }
 
 /** Called inside submitRevision's transaction. */
@@ -99,7 +107,14 @@ function feedbackAddress(userId: string, tx: Reader): string | null {
 }
 
 export function notifyReview(
-	args: { design: Design; revision: Revision; reviewerName: string; verdict: keyof typeof VERDICT_WORDS; summary: string; reviewId: string },
+	args: {
+		design: Design;
+		revision: Revision;
+		reviewerName: string;
+		verdict: keyof typeof VERDICT_WORDS;
+		summary: string;
+		reviewId: string;
+	},
 	tx: Tx
 ): boolean {
 	const { design, revision: r } = args;
@@ -124,13 +139,21 @@ export function notifyReview(
 
 /** A comment mails the revision's author, and the thread's starter on a reply (never the writer). */
 export function notifyComment(
-	args: { design: Design; revision: Revision; commentId: string; writerId: string; writerName: string; body: string; threadStarterId: string | null },
+	args: {
+		design: Design;
+		revision: Revision;
+		commentId: string;
+		writerId: string;
+		writerName: string;
+		body: string;
+		threadStarterId: string | null;
+	},
 	tx: Tx
 ): number {
 	const { design, revision: r } = args;
-	const ids = [...new Set([r.authorId, args.threadStarterId].filter((x): x is string => !!x))].filter(
-		(id) => id !== args.writerId
-	);
+	const ids = [
+		...new Set([r.authorId, args.threadStarterId].filter((x): x is string => !!x))
+	].filter((id) => id !== args.writerId);
 	let sent = 0;
 	for (const id of ids) {
 		const to = feedbackAddress(id, tx);
@@ -139,7 +162,9 @@ export function notifyComment(
 		queueMail(
 			{
 				to,
-				subject: headerSafe(`${args.threadStarterId ? 'Reply' : 'Comment'} on ${design.title} r${r.number}`),
+				subject: headerSafe(
+					`${args.threadStarterId ? 'Reply' : 'Comment'} on ${design.title} r${r.number}`
+				),
 				text: [
 					`${args.writerName} wrote on ${design.title} r${r.number}:`,
 					'',
@@ -155,7 +180,10 @@ export function notifyComment(
 	return sent;
 }
 
-export function notifyRejectConfirmed(args: { design: Design; revision: Revision; moderatorName: string }, tx: Tx): boolean {
+export function notifyRejectConfirmed(
+	args: { design: Design; revision: Revision; moderatorName: string },
+	tx: Tx
+): boolean {
 	const { design, revision: r } = args;
 	const to = feedbackAddress(r.authorId, tx);
 	if (!to) return false;

@@ -151,7 +151,9 @@ describe('parseEml (mailparser)', () => {
 	});
 
 	it('unfolds folded headers (RFC 5322 §2.2.3)', async () => {
-		const parsed = await parseEml('Subject: a long\r\n  folded subject\r\nTo: x@y.test\r\n\r\nbody');
+		const parsed = await parseEml(
+			'Subject: a long\r\n  folded subject\r\nTo: x@y.test\r\n\r\nbody'
+		);
 		expect(parsed.subject).toBe('a long folded subject');
 		expect(parsed.text).toBe('body');
 	});

@@ -55,7 +55,10 @@ async function deliverQueued(now = Date.now()): Promise<number> {
 		for (const m of due) {
 			try {
 				await getMailer().send({ to: m.toAddress, subject: m.subject, text: m.body });
-				db.update(mailQueue).set({ sentAt: new Date(), attempts: m.attempts + 1 }).where(eq(mailQueue.id, m.id)).run();
+				db.update(mailQueue)
+					.set({ sentAt: new Date(), attempts: m.attempts + 1 })
+					.where(eq(mailQueue.id, m.id))
+					.run();
 				sent++;
 			} catch (e) {
 				const attempts = m.attempts + 1;

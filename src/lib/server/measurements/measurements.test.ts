@@ -17,7 +17,8 @@ let builder: SessionUser;
 let unverified: SessionUser;
 let temp: TempStore;
 
-const fixture = (name: string) => readFileSync(new URL(`../../testing/sweeps/${name}`, import.meta.url));
+const fixture = (name: string) =>
+	readFileSync(new URL(`../../testing/sweeps/${name}`, import.meta.url));
 const bytes = (s: string) => new TextEncoder().encode(s);
 const fields = {
 	instrument: 'vna',

@@ -222,7 +222,9 @@ const measurementsOfRevision = db
 	.select({
 		m: {
 			...listedColumns,
-			analysis: sql<Record<string, unknown>>`${metrics}`.mapWith((v: string) => JSON.parse(v) as Record<string, unknown>)
+			analysis: sql<Record<string, unknown>>`${metrics}`.mapWith(
+				(v: string) => JSON.parse(v) as Record<string, unknown>
+			)
 		},
 		uploader: users.displayName
 	})
@@ -233,7 +235,9 @@ const measurementsOfRevision = db
 	.prepare();
 
 /** A revision's sweeps, oldest first, with their metrics but without the plotted series. */
-export function listMeasurementRows(revisionId: string): { m: Omit<MeasurementRow, 'metrics'>; uploader: string }[] {
+export function listMeasurementRows(
+	revisionId: string
+): { m: Omit<MeasurementRow, 'metrics'>; uploader: string }[] {
 	return measurementsOfRevision.all({ revisionId });
 }
 

@@ -51,7 +51,6 @@ function measurementSummary(
 	};
 }
 
-
 export interface PassCount {
 	total: number;
 	pass: number;
@@ -71,7 +70,9 @@ const designCounts = db
 
 /** Author's measurements and build reports over every revision of the design the reader can see. */
 function designMeasurementCounts(designId: string, user: SessionUser | null) {
-	const rows = designCounts.all({ designId }).filter((x) => x.state !== 'draft' || x.authorId === user?.id);
+	const rows = designCounts
+		.all({ designId })
+		.filter((x) => x.state !== 'draft' || x.authorId === user?.id);
 	const count = (kind: UploadKind): PassCount => {
 		const of = rows.filter((x) => x.kind === kind);
 		return { total: of.length, pass: of.filter((x) => x.pass === true).length };

@@ -29,7 +29,11 @@ export async function uploadAction(
 	) => Promise<{ id: string }>
 ) {
 	const user = requireVerifiedMember();
-	const { design, revision } = loadDesignRevision(event.params.slug, event.params.n, event.locals.user);
+	const { design, revision } = loadDesignRevision(
+		event.params.slug,
+		event.params.n,
+		event.locals.user
+	);
 	if (await isLimited('upload', event)) {
 		return refused(429, 'Too many uploads at once; wait a minute and try again.');
 	}

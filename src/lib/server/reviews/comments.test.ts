@@ -19,7 +19,11 @@ let ines: SessionUser;
 let plain: SessionUser;
 
 async function person(email: string, role: Role) {
-	const a = (await createAccount({ email, displayName: email.split('@')[0], password: 'long enough pass' }))!;
+	const a = (await createAccount({
+		email,
+		displayName: email.split('@')[0],
+		password: 'long enough pass'
+	}))!;
 	db.update(users).set({ emailVerifiedAt: new Date(), role }).where(eq(users.id, a.id)).run();
 	return toSessionUser(db.select().from(users).where(eq(users.id, a.id)).get()!);
 }
@@ -65,12 +69,26 @@ describe('anchors', () => {
 			{ kind: 'lines', start: 2, end: 3 },
 			{ kind: 'general' }
 		]);
-		const noRow = failure(() => addComment(tomas, id, { body: 'x', anchor: { kind: 'row', rowKey: 'no_such_row' } }));
+		const noRow = failure(() =>
+			addComment(tomas, id, { body: 'x', anchor: { kind: 'row', rowKey: 'no_such_row' } })
+		);
 		expect([noRow.status, noRow.field]).toEqual([422, 'row_key']);
 		expect(noRow.message).toContain('no_such_row');
-		expect(failure(() => addComment(tomas, id, { body: 'x', anchor: { kind: 'lines', start: 3, end: 4 } })).status).toBe(422);
-		expect(failure(() => addComment(tomas, id, { body: 'x', anchor: { kind: 'lines', start: 3, end: 2 } })).status).toBe(422);
-		expect(failure(() => addComment(tomas, id, { body: 'x', anchor: { kind: 'lines', start: NaN, end: NaN } })).status).toBe(422);
+		expect(
+			failure(() =>
+				addComment(tomas, id, { body: 'x', anchor: { kind: 'lines', start: 3, end: 4 } })
+			).status
+		).toBe(422);
+		expect(
+			failure(() =>
+				addComment(tomas, id, { body: 'x', anchor: { kind: 'lines', start: 3, end: 2 } })
+			).status
+		).toBe(422);
+		expect(
+			failure(() =>
+				addComment(tomas, id, { body: 'x', anchor: { kind: 'lines', start: NaN, end: NaN } })
+			).status
+		).toBe(422);
 		expect(db.select().from(comments).where(eq(comments.revisionId, id)).all()).toHaveLength(3);
 	});
 
@@ -99,7 +117,10 @@ describe('who may comment', () => {
 describe('threads', () => {
 	it('replies join the thread and take its anchor; a reply to a reply joins the same thread', () => {
 		const { id } = submitted();
-		const root = addComment(tomas, id, { body: 'Check this row.', anchor: { kind: 'row', rowKey: 'quarter_wave' } });
+		const root = addComment(tomas, id, {
+			body: 'Check this row.',
+			anchor: { kind: 'row', rowKey: 'quarter_wave' }
+		});
 		const reply = addComment(author, id, { body: 'Fixed in r2.', parentId: root.id });
 		addComment(ines, id, { body: 'Agreed.', parentId: reply.id });
 		const [thread] = listThreads(getRevisionById(id)!, author);
@@ -117,7 +138,11 @@ describe('threads', () => {
 		expect(failure(() => setResolved(author, reply.id, true)).status).toBe(409);
 		setResolved(author, root.id, true);
 		let [thread] = listThreads(getRevisionById(id)!, tomas);
-		expect([thread.resolved, thread.resolvedBy, thread.canResolve]).toEqual([true, 'c-author', true]);
+		expect([thread.resolved, thread.resolvedBy, thread.canResolve]).toEqual([
+			true,
+			'c-author',
+			true
+		]);
 		setResolved(tomas, root.id, false);
 		[thread] = listThreads(getRevisionById(id)!, ines);
 		expect([thread.resolved, thread.canResolve]).toEqual([false, false]);
@@ -125,7 +150,8 @@ describe('threads', () => {
 
 	it('mails the author on a reviewer comment and the starter on a reply, with the comment anchor link', () => {
 		const { slug, id } = submitted();
-		const count = (to: string) => db.select().from(mailQueue).where(eq(mailQueue.toAddress, to)).all();
+		const count = (to: string) =>
+			db.select().from(mailQueue).where(eq(mailQueue.toAddress, to)).all();
 		const a0 = count(author.email).length;
 		const t0 = count(tomas.email).length;
 		const root = addComment(tomas, id, { body: 'Which coax?' });
@@ -145,13 +171,18 @@ describe('stored comments render sanitized', () => {
 		for (const v of XSS_VECTORS) addComment(tomas, id, { body: v }, { notify: false });
 		const threads = listThreads(getRevisionById(id)!, tomas);
 		expect(threads).toHaveLength(XSS_VECTORS.length);
-		const doc = new JSDOM(`<body>${threads.map((t) => `<div>${t.html}</div>`).join('')}</body>`).window.document;
-		expect(doc.querySelectorAll('script, iframe, object, embed, svg, math, form, input, style')).toHaveLength(0);
+		const doc = new JSDOM(`<body>${threads.map((t) => `<div>${t.html}</div>`).join('')}</body>`)
+			.window.document;
+		expect(
+			doc.querySelectorAll('script, iframe, object, embed, svg, math, form, input, style')
+		).toHaveLength(0);
 		for (const el of Array.from(doc.querySelectorAll('*'))) {
 			for (const attr of Array.from(el.attributes)) {
 				expect(attr.name.startsWith('on'), `${el.tagName} ${attr.name}`).toBe(false);
 				if (attr.name === 'href' || attr.name === 'src') {
-					expect(attr.value.replace(/[\s\u0000-\u001f]/g, '')).not.toMatch(/^(javascript|vbscript|data):/i);
+					expect(attr.value.replace(/[\s\u0000-\u001f]/g, '')).not.toMatch(
+						/^(javascript|vbscript|data):/i
+					);
 				}
 			}
 		}

@@ -15,15 +15,18 @@ import type { SessionUser } from '../accounts/auth';
 
 export const MAX_COMMENT_CHARS = REVIEW_LIMITS.commentChars;
 
-export const noteLineCount = (r: Revision) => (r.notes === '' ? 0 : r.notes.replace(/\r\n?/g, '\n').split('\n').length);
+export const noteLineCount = (r: Revision) =>
+	r.notes === '' ? 0 : r.notes.replace(/\r\n?/g, '\n').split('\n').length;
 
 /** Reviewers and the revision's author take part; a draft is only its author's (and has no review yet). */
 function assertMayComment(user: SessionUser, r: Revision): void {
 	if (r.state === 'draft') {
-		if (r.authorId !== user.id) throw new DomainError(403, 'This draft is not yours; you cannot comment on it.');
+		if (r.authorId !== user.id)
+			throw new DomainError(403, 'This draft is not yours; you cannot comment on it.');
 		throw new DomainError(409, 'Comments open once the draft is submitted.');
 	}
-	if (r.state === 'withdrawn') throw new DomainError(409, `r${r.number} was withdrawn; its review is closed.`);
+	if (r.state === 'withdrawn')
+		throw new DomainError(409, `r${r.number} was withdrawn; its review is closed.`);
 	if (r.authorId !== user.id && !isReviewer(user)) {
 		throw new DomainError(403, 'Only reviewers and the author take part in a review.');
 	}
@@ -47,15 +50,28 @@ function anchorColumns(r: Revision, anchor: CommentAnchor) {
 	if (anchor.kind === 'row') {
 		const keys = contentOf(r).rows.map((row) => row.key);
 		if (!keys.includes(anchor.rowKey)) {
-			throw new DomainError(422, `r${r.number} has no dimension row with the key "${anchor.rowKey.slice(0, 40)}".`, 'row_key');
+			throw new DomainError(
+				422,
+				`r${r.number} has no dimension row with the key "${anchor.rowKey.slice(0, 40)}".`,
+				'row_key'
+			);
 		}
-		return { anchorKind: 'row' as const, anchorRowKey: anchor.rowKey, anchorLineStart: null, anchorLineEnd: null };
+		return {
+			anchorKind: 'row' as const,
+			anchorRowKey: anchor.rowKey,
+			anchorLineStart: null,
+			anchorLineEnd: null
+		};
 	}
 	if (anchor.kind === 'lines') {
 		const lines = noteLineCount(r);
 		const { start, end } = anchor;
 		if (!Number.isInteger(start) || !Number.isInteger(end)) {
-			throw new DomainError(422, 'Lines must be whole numbers (first and last line of the range).', 'line_start');
+			throw new DomainError(
+				422,
+				'Lines must be whole numbers (first and last line of the range).',
+				'line_start'
+			);
 		}
 		if (start < 1 || end < start || end > lines) {
 			throw new DomainError(
@@ -66,9 +82,19 @@ function anchorColumns(r: Revision, anchor: CommentAnchor) {
 				'line_start'
 			);
 		}
-		return { anchorKind: 'lines' as const, anchorRowKey: null, anchorLineStart: start, anchorLineEnd: end };
+		return {
+			anchorKind: 'lines' as const,
+			anchorRowKey: null,
+			anchorLineStart: start,
+			anchorLineEnd: end
+		};
 	}
-	return { anchorKind: 'general' as const, anchorRowKey: null, anchorLineStart: null, anchorLineEnd: null };
+	return {
+		anchorKind: 'general' as const,
+		anchorRowKey: null,
+		anchorLineStart: null,
+		anchorLineEnd: null
+	};
 }
 
 export interface NewComment {
@@ -93,25 +119,54 @@ export function addComment(
 		let parent: typeof comments.$inferSelect | undefined;
 		if (input.parentId) {
 			parent = tx.select().from(comments).where(eq(comments.id, input.parentId)).get();
-			if (!parent || parent.revisionId !== r.id) throw new DomainError(404, 'The comment you answer does not exist.', 'parent_id');
+			if (!parent || parent.revisionId !== r.id)
+				throw new DomainError(404, 'The comment you answer does not exist.', 'parent_id');
 			// Threads are one level deep: a reply to a reply joins the same thread.
-			if (parent.parentId) parent = tx.select().from(comments).where(eq(comments.id, parent.parentId)).get();
+			if (parent.parentId)
+				parent = tx.select().from(comments).where(eq(comments.id, parent.parentId)).get();
 		}
 		const anchor = parent
-			? { anchorKind: parent!.anchorKind, anchorRowKey: parent!.anchorRowKey, anchorLineStart: parent!.anchorLineStart, anchorLineEnd: parent!.anchorLineEnd }
+			? {
+					anchorKind: parent!.anchorKind,
+					anchorRowKey: parent!.anchorRowKey,
+					anchorLineStart: parent!.anchorLineStart,
+					anchorLineEnd: parent!.anchorLineEnd
+				}
 			: anchorColumns(r, input.anchor ?? { kind: 'general' });
 		const id = newId();
 		tx.insert(comments)
-			.values({ id, revisionId: r.id, authorId: user.id, parentId: parent?.id ?? null, ...anchor, body, createdAt: now })
+			.values({
+				id,
+				revisionId: r.id,
+				authorId: user.id,
+				parentId: parent?.id ?? null,
+				...anchor,
+				body,
+				createdAt: now
+			})
 			.run();
 		audit(
-			{ actorId: user.id, action: parent ? 'comment.reply' : 'comment.add', targetType: 'revision', targetId: r.id, details: { comment: id, anchor: anchor.anchorKind } },
+			{
+				actorId: user.id,
+				action: parent ? 'comment.reply' : 'comment.add',
+				targetType: 'revision',
+				targetId: r.id,
+				details: { comment: id, anchor: anchor.anchorKind }
+			},
 			tx
 		);
 		if (options.notify !== false) {
 			const design = tx.select().from(designs).where(eq(designs.id, r.designId)).get()!;
 			notifyComment(
-				{ design, revision: r, commentId: id, writerId: user.id, writerName: user.displayName, body, threadStarterId: parent?.authorId ?? null },
+				{
+					design,
+					revision: r,
+					commentId: id,
+					writerId: user.id,
+					writerName: user.displayName,
+					body,
+					threadStarterId: parent?.authorId ?? null
+				},
 				tx
 			);
 		}
@@ -120,20 +175,40 @@ export function addComment(
 }
 
 /** Marks a thread resolved (or open again): its starter or the revision's author may. */
-export function setResolved(user: SessionUser, commentId: string, resolved: boolean, now = new Date()) {
+export function setResolved(
+	user: SessionUser,
+	commentId: string,
+	resolved: boolean,
+	now = new Date()
+) {
 	return db.transaction((tx) => {
 		const c = tx.select().from(comments).where(eq(comments.id, commentId)).get();
 		if (!c) throw new DomainError(404, 'No such comment.');
 		const r = tx.select().from(revisions).where(eq(revisions.id, c.revisionId)).get()!;
 		if (c.parentId) throw new DomainError(409, 'Resolve the thread, not a reply.');
 		if (user.id !== c.authorId && user.id !== r.authorId) {
-			throw new DomainError(403, "Only the thread's starter or the revision's author can resolve it.");
+			throw new DomainError(
+				403,
+				"Only the thread's starter or the revision's author can resolve it."
+			);
 		}
 		tx.update(comments)
-			.set(resolved ? { resolvedAt: now, resolvedById: user.id } : { resolvedAt: null, resolvedById: null })
+			.set(
+				resolved
+					? { resolvedAt: now, resolvedById: user.id }
+					: { resolvedAt: null, resolvedById: null }
+			)
 			.where(eq(comments.id, c.id))
 			.run();
-		audit({ actorId: user.id, action: resolved ? 'comment.resolve' : 'comment.reopen', targetType: 'comment', targetId: c.id }, tx);
+		audit(
+			{
+				actorId: user.id,
+				action: resolved ? 'comment.resolve' : 'comment.reopen',
+				targetType: 'comment',
+				targetId: c.id
+			},
+			tx
+		);
 	});
 }
 
@@ -177,7 +252,11 @@ export function listThreads(r: Revision, user: SessionUser | null): ThreadView[]
 				c.anchorKind === 'row'
 					? { kind: 'row', rowKey: c.anchorRowKey ?? '' }
 					: c.anchorKind === 'lines'
-						? { kind: 'lines', start: c.anchorLineStart ?? 1, end: c.anchorLineEnd ?? c.anchorLineStart ?? 1 }
+						? {
+								kind: 'lines',
+								start: c.anchorLineStart ?? 1,
+								end: c.anchorLineEnd ?? c.anchorLineStart ?? 1
+							}
 						: { kind: 'general' };
 			return {
 				...view(x),
@@ -189,4 +268,3 @@ export function listThreads(r: Revision, user: SessionUser | null): ThreadView[]
 			};
 		});
 }
-

@@ -16,7 +16,11 @@ let author: SessionUser;
 let stranger: SessionUser;
 
 async function member(email: string) {
-	const a = (await createAccount({ email, displayName: email.split('@')[0], password: 'long enough pass' }))!;
+	const a = (await createAccount({
+		email,
+		displayName: email.split('@')[0],
+		password: 'long enough pass'
+	}))!;
 	db.update(users).set({ emailVerifiedAt: new Date() }).where(eq(users.id, a.id)).run();
 	return toSessionUser(db.select().from(users).where(eq(users.id, a.id)).get()!);
 }
@@ -26,7 +30,13 @@ const fixed = (notes: string): RevisionContent => ({
 	...starterContent(2.45e9),
 	parameters: [{ key: 'vf', label: 'Velocity factor', value: 1 }],
 	rows: [
-		{ key: 'quarter', label: 'Quarter wave', formula: 'c / (4 * 2.45 GHz)', kind: 'resonant', tolerance_mm: 0.5 },
+		{
+			key: 'quarter',
+			label: 'Quarter wave',
+			formula: 'c / (4 * 2.45 GHz)',
+			kind: 'resonant',
+			tolerance_mm: 0.5
+		},
 		{ key: 'wire', label: 'Wire', formula: '1.6 mm', kind: 'material' },
 		{ key: 'gone', label: 'Removed later', formula: 'lambda / 10', kind: 'structural' }
 	],
@@ -38,7 +48,13 @@ const scaled = (notes: string): RevisionContent => ({
 	design_frequency_hz: 5.8e9,
 	parameters: [{ key: 'vf', label: 'Velocity factor', value: 0.95 }],
 	rows: [
-		{ key: 'quarter', label: 'Quarter wave', formula: 'lambda / 4', kind: 'resonant', tolerance_mm: 0.5 },
+		{
+			key: 'quarter',
+			label: 'Quarter wave',
+			formula: 'lambda / 4',
+			kind: 'resonant',
+			tolerance_mm: 0.5
+		},
 		{ key: 'wire', label: 'Wire', formula: '1.6 mm', kind: 'material' },
 		{ key: 'added', label: 'New row', formula: 'lambda / 2', kind: 'structural' }
 	],
@@ -50,7 +66,11 @@ let slug = '';
 beforeAll(async () => {
 	author = await member('cmp-author@example.org');
 	stranger = await member('cmp-stranger@example.org');
-	const created = createDesign(author, { title: 'Compare test', family: 'dipole', polarization: 'linear', summary: '' }, fixed('Cut the wire to 30.6 mm.\nSolder it.'));
+	const created = createDesign(
+		author,
+		{ title: 'Compare test', family: 'dipole', polarization: 'linear', summary: '' },
+		fixed('Cut the wire to 30.6 mm.\nSolder it.')
+	);
 	slug = created.slug;
 	submitRevision(author, created.revisionId);
 	const design = getDesignBySlug(slug)!;
@@ -84,7 +104,11 @@ describe('compareRevisions', () => {
 		const vf = d.parameters.find((p) => p.key === 'vf')!;
 		expect([vf.change, vf.from?.value, vf.to?.value]).toEqual(['changed', 1, 0.95]);
 		expect(d.parameters.find((p) => p.key === 'design_frequency')!.to?.value).toBe(5.8e9);
-		expect(d.claims.find((c) => c.key === 'centre_hz')).toMatchObject({ change: 'changed', from: 2.45e9, to: 5.8e9 });
+		expect(d.claims.find((c) => c.key === 'centre_hz')).toMatchObject({
+			change: 'changed',
+			from: 2.45e9,
+			to: 5.8e9
+		});
 		expect(d.notes.filter((p) => p.op === 'delete').map((p) => p.text.trim())).toContain('30.6');
 		expect(d.notes.filter((p) => p.op === 'insert').map((p) => p.text.trim())).toContain('12.9');
 		expect(d.notesSideBySide.filter((r) => r.changed)).toHaveLength(1);
@@ -112,7 +136,10 @@ describe('resolveCompare', () => {
 
 	it('404s for a number that does not exist and for someone else’s draft; 400 for junk', () => {
 		const design = getDesignBySlug(slug)!;
-		const status = (q: { from: string | null; to: string | null; f: string | null }, u: SessionUser | null) => {
+		const status = (
+			q: { from: string | null; to: string | null; f: string | null },
+			u: SessionUser | null
+		) => {
 			try {
 				resolveCompare(design, q, u);
 			} catch (e) {
@@ -131,14 +158,40 @@ describe('resolveCompare', () => {
 
 describe('measured resonance shift', () => {
 	it('picks the VSWR ≤ 2 band that holds the minimum', () => {
-		expect(mainBand([[1e9, 1.1e9], [2.4e9, 2.5e9]], 2.45e9)).toEqual([2.4e9, 2.5e9]);
-		expect(mainBand([[1e9, 1.3e9], [2.4e9, 2.5e9]], null)).toEqual([1e9, 1.3e9]);
+		expect(
+			mainBand(
+				[
+					[1e9, 1.1e9],
+					[2.4e9, 2.5e9]
+				],
+				2.45e9
+			)
+		).toEqual([2.4e9, 2.5e9]);
+		expect(
+			mainBand(
+				[
+					[1e9, 1.3e9],
+					[2.4e9, 2.5e9]
+				],
+				null
+			)
+		).toEqual([1e9, 1.3e9]);
 		expect(mainBand('nonsense', 1)).toBeNull();
 	});
 
 	it('subtracts the older sweep from the newer one, and says when one is missing', () => {
-		const a = { measurementId: 'a', createdAt: '', f_min_vswr_hz: 2.44e9, band_vswr_2: [2.40e9, 2.48e9] as [number, number] };
-		const b = { measurementId: 'b', createdAt: '', f_min_vswr_hz: 2.452e9, band_vswr_2: [2.41e9, 2.5e9] as [number, number] };
+		const a = {
+			measurementId: 'a',
+			createdAt: '',
+			f_min_vswr_hz: 2.44e9,
+			band_vswr_2: [2.4e9, 2.48e9] as [number, number]
+		};
+		const b = {
+			measurementId: 'b',
+			createdAt: '',
+			f_min_vswr_hz: 2.452e9,
+			band_vswr_2: [2.41e9, 2.5e9] as [number, number]
+		};
 		const s = measurementShift(a, b);
 		expect(s.shift_min_hz).toBeCloseTo(12e6, 0);
 		expect(s.shift_band_lo_hz).toBeCloseTo(10e6, 0);
@@ -150,10 +203,22 @@ describe('measured resonance shift', () => {
 		const design = getDesignBySlug(slug)!;
 		const [r1, r2] = [getRevision(design.id, 1)!, getRevision(design.id, 2)!];
 		const sweep = (id: string, revisionId: string, fMin: number, at: number) =>
-			db.insert(measurements).values({
-				id, revisionId, uploaderId: author.id, kind: 'measurement', instrument: 'vna', fileKey: id, fileName: `${id}.s1p`,
-				fileType: 'touchstone', fileSize: 1, analysis: { f_min_vswr_hz: fMin, bands_vswr_2: [[fMin - 5e7, fMin + 5e7]] }, createdAt: new Date(at)
-			}).run();
+			db
+				.insert(measurements)
+				.values({
+					id,
+					revisionId,
+					uploaderId: author.id,
+					kind: 'measurement',
+					instrument: 'vna',
+					fileKey: id,
+					fileName: `${id}.s1p`,
+					fileType: 'touchstone',
+					fileSize: 1,
+					analysis: { f_min_vswr_hz: fMin, bands_vswr_2: [[fMin - 5e7, fMin + 5e7]] },
+					createdAt: new Date(at)
+				})
+				.run();
 		sweep('m-old', r1.id, 2.3e9, 1000);
 		sweep('m-new', r1.id, 2.4e9, 2000);
 		sweep('m-r2', r2.id, 5.7e9, 3000);

@@ -2,8 +2,18 @@
 import { desc, eq } from 'drizzle-orm';
 import { db } from '../db';
 import { measurements, type Design, type Revision } from '../db/schema';
-import { diffNotes, sideBySide, type NotesDiffPart, type SideBySideRow } from '$lib/rf/tables/notes-diff';
-import { diffTables, type DiffParameter, type TableDiff, type TableSide } from '$lib/rf/tables/table-diff';
+import {
+	diffNotes,
+	sideBySide,
+	type NotesDiffPart,
+	type SideBySideRow
+} from '$lib/rf/tables/notes-diff';
+import {
+	diffTables,
+	type DiffParameter,
+	type TableDiff,
+	type TableSide
+} from '$lib/rf/tables/table-diff';
 import type { TableResult } from '$lib/rf/tables/types';
 import { parseFrequency } from '$lib/rf/units/frequency';
 import { contentOf } from '../designs/content';
@@ -49,7 +59,8 @@ const num = (x: unknown): number | null => (typeof x === 'number' && Number.isFi
 export function mainBand(bands: unknown, fMin: number | null): [number, number] | null {
 	if (!Array.isArray(bands)) return null;
 	const valid = bands.filter(
-		(b): b is [number, number] => Array.isArray(b) && num(b[0]) !== null && num(b[1]) !== null && b[0] <= b[1]
+		(b): b is [number, number] =>
+			Array.isArray(b) && num(b[0]) !== null && num(b[1]) !== null && b[0] <= b[1]
 	);
 	if (valid.length === 0) return null;
 	const holding = fMin === null ? undefined : valid.find(([lo, hi]) => fMin >= lo && fMin <= hi);
@@ -57,7 +68,11 @@ export function mainBand(bands: unknown, fMin: number | null): [number, number] 
 }
 
 /** Reads the stored AnalyzeResult defensively: it comes from another module's uploads. */
-function summarizeSweep(row: { id: string; createdAt: Date; analysis: Record<string, unknown> }): SweepSummary {
+function summarizeSweep(row: {
+	id: string;
+	createdAt: Date;
+	analysis: Record<string, unknown>;
+}): SweepSummary {
 	const fMin = num(row.analysis?.f_min_vswr_hz);
 	return {
 		measurementId: row.id,
@@ -69,7 +84,11 @@ function summarizeSweep(row: { id: string; createdAt: Date; analysis: Record<str
 
 function newestSweep(revisionId: string): SweepSummary | null {
 	const row = db
-		.select({ id: measurements.id, createdAt: measurements.createdAt, analysis: measurements.analysis })
+		.select({
+			id: measurements.id,
+			createdAt: measurements.createdAt,
+			analysis: measurements.analysis
+		})
 		.from(measurements)
 		.where(eq(measurements.revisionId, revisionId))
 		.orderBy(desc(measurements.createdAt))
@@ -77,37 +96,53 @@ function newestSweep(revisionId: string): SweepSummary | null {
 	return row ? summarizeSweep(row) : null;
 }
 
-export function measurementShift(from: SweepSummary | null, to: SweepSummary | null): MeasurementShift {
+export function measurementShift(
+	from: SweepSummary | null,
+	to: SweepSummary | null
+): MeasurementShift {
 	const d = (a: number | null | undefined, b: number | null | undefined) =>
 		a === null || a === undefined || b === null || b === undefined ? null : b - a;
 	const base = { from, to, shift_min_hz: null, shift_band_lo_hz: null, shift_band_hi_hz: null };
 	if (!from && !to) return { ...base, message: 'no sweeps' };
-	if (!from || !to) return { ...base, message: `no sweeps for the ${from ? 'newer' : 'older'} revision` };
+	if (!from || !to)
+		return { ...base, message: `no sweeps for the ${from ? 'newer' : 'older'} revision` };
 	return {
 		from,
 		to,
 		shift_min_hz: d(from.f_min_vswr_hz, to.f_min_vswr_hz),
 		shift_band_lo_hz: d(from.band_vswr_2?.[0], to.band_vswr_2?.[0]),
 		shift_band_hi_hz: d(from.band_vswr_2?.[1], to.band_vswr_2?.[1]),
-		message: from.band_vswr_2 && to.band_vswr_2 ? 'newest sweeps compared' : 'a sweep never reaches VSWR ≤ 2'
+		message:
+			from.band_vswr_2 && to.band_vswr_2
+				? 'newest sweeps compared'
+				: 'a sweep never reaches VSWR ≤ 2'
 	};
 }
 
 function sideOf(r: Revision): TableSide {
 	const c = contentOf(r);
-	const design: DiffParameter = { key: 'design_frequency', label: 'Design frequency', value: c.design_frequency_hz, unit: 'Hz' };
+	const design: DiffParameter = {
+		key: 'design_frequency',
+		label: 'Design frequency',
+		value: c.design_frequency_hz,
+		unit: 'Hz'
+	};
 	return { parameters: [design, ...c.parameters], rows: c.rows, claim: c.claim };
 }
 
 /** Exact lengths in mm of rows that computed; counts and errors give no value. */
 function valuesOf(result: TableResult): Record<string, number | null> {
 	return Object.fromEntries(
-		result.rows.map((row) => [row.key, row.error || row.value_mm === undefined ? null : row.value_mm])
+		result.rows.map((row) => [
+			row.key,
+			row.error || row.value_mm === undefined ? null : row.value_mm
+		])
 	);
 }
 
 export function compareRevisions(from: Revision, to: Revision, frequencyHz: number): RevisionDiff {
-	if (from.designId !== to.designId) throw new DomainError(404, 'Both revisions must belong to the same design.');
+	if (from.designId !== to.designId)
+		throw new DomainError(404, 'Both revisions must belong to the same design.');
 	const table = diffTables(sideOf(from), sideOf(to), {
 		valuesFrom: valuesOf(computeRevision(from, { frequencyHz })),
 		valuesTo: valuesOf(computeRevision(to, { frequencyHz }))
@@ -133,11 +168,18 @@ export function readableRevisions(design: Design, user: SessionUser | null) {
 	return listRevisions(design.id).filter((h) => h.state !== 'draft' || h.authorId === user?.id);
 }
 
-function pick(design: Design, text: string, name: 'from' | 'to', user: SessionUser | null): Revision {
-	if (!/^\d{1,6}$/.test(text)) throw new DomainError(400, `${name} must be a revision number such as 2.`, name);
+function pick(
+	design: Design,
+	text: string,
+	name: 'from' | 'to',
+	user: SessionUser | null
+): Revision {
+	if (!/^\d{1,6}$/.test(text))
+		throw new DomainError(400, `${name} must be a revision number such as 2.`, name);
 	const r = getRevision(design.id, Number(text));
 	// A draft someone else owns is hidden like a missing one.
-	if (!r || !canRead(user, r)) throw new DomainError(404, `This design has no revision r${text}.`, name);
+	if (!r || !canRead(user, r))
+		throw new DomainError(404, `This design has no revision r${text}.`, name);
 	return r;
 }
 
@@ -153,9 +195,13 @@ export function resolveCompare(
 ) {
 	const list = readableRevisions(design, user);
 	if (list.length === 0) throw new DomainError(404, 'This design has no revisions you can read.');
-	const to = query.to ? pick(design, query.to, 'to', user) : getRevision(design.id, list[0].number)!;
+	const to = query.to
+		? pick(design, query.to, 'to', user)
+		: getRevision(design.id, list[0].number)!;
 	const before = list.find((h) => h.number < to.number);
-	const from = query.from ? pick(design, query.from, 'from', user) : getRevision(design.id, (before ?? list.find((h) => h.number === to.number)!).number)!;
+	const from = query.from
+		? pick(design, query.from, 'from', user)
+		: getRevision(design.id, (before ?? list.find((h) => h.number === to.number)!).number)!;
 	let hz = to.designHz;
 	let frequencyMessage: string | null = null;
 	if (query.f !== null && query.f.trim() !== '') {
@@ -164,5 +210,11 @@ export function resolveCompare(
 		else if (strictFrequency) throw new DomainError(400, parsed.message, 'f');
 		else frequencyMessage = `Frequency ignored: ${parsed.message}`;
 	}
-	return { from, to, hz, frequencyMessage, revisions: list.map((h) => ({ number: h.number, state: h.state })) };
+	return {
+		from,
+		to,
+		hz,
+		frequencyMessage,
+		revisions: list.map((h) => ({ number: h.number, state: h.state }))
+	};
 }

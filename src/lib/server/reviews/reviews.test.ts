@@ -18,7 +18,11 @@ let wren: SessionUser;
 let plain: SessionUser;
 
 async function person(email: string, role: Role) {
-	const a = (await createAccount({ email, displayName: email.split('@')[0], password: 'long enough pass' }))!;
+	const a = (await createAccount({
+		email,
+		displayName: email.split('@')[0],
+		password: 'long enough pass'
+	}))!;
 	db.update(users).set({ emailVerifiedAt: new Date(), role }).where(eq(users.id, a.id)).run();
 	return toSessionUser(db.select().from(users).where(eq(users.id, a.id)).get()!);
 }
@@ -47,7 +51,10 @@ function submitted(family: 'dipole' | 'patch' = 'dipole') {
 }
 
 const stateOf = (id: string) => getRevisionById(id)!.state;
-const ok = (summary = 'Checked the table against my own build.') => ({ verdict: 'approve', summary });
+const ok = (summary = 'Checked the table against my own build.') => ({
+	verdict: 'approve',
+	summary
+});
 
 beforeAll(async () => {
 	author = await person('rev-author@example.org', 'member');
@@ -65,13 +72,20 @@ describe('verdicts and the approval policy', () => {
 		expect(stateOf(id)).toBe('approved');
 		expect(getRevisionById(id)!.decidedAt).not.toBeNull();
 		expect(getDesignBySlug(slug)!.shownRevisionId).toBe(id);
-		const actions = db.select().from(auditLog).where(eq(auditLog.targetId, id)).all().map((a) => a.action);
+		const actions = db
+			.select()
+			.from(auditLog)
+			.where(eq(auditLog.targetId, id))
+			.all()
+			.map((a) => a.action);
 		expect(actions).toEqual(expect.arrayContaining(['review.submit', 'revision.approve']));
 	});
 
 	it('revise returns the revision; the author starts r2 from it and r1 stays readable', () => {
 		const { slug, id } = submitted();
-		expect(submitReview(ines, id, { verdict: 'revise', summary: 'The feed gap is too wide.' }).state).toBe('returned');
+		expect(
+			submitReview(ines, id, { verdict: 'revise', summary: 'The feed gap is too wide.' }).state
+		).toBe('returned');
 		expect(stateOf(id)).toBe('returned');
 		const design = getDesignBySlug(slug)!;
 		expect(design.shownRevisionId).toBeNull();
@@ -108,7 +122,11 @@ describe('verdicts and the approval policy', () => {
 
 	it('a reviewer who is also the author of the revision cannot review it', async () => {
 		const reviewerAuthor = await person('rev-self@example.org', 'reviewer');
-		const { revisionId } = createDesign(reviewerAuthor, { title: 'Self review', family: 'dipole', polarization: 'linear', summary: '' }, starterContent(868e6));
+		const { revisionId } = createDesign(
+			reviewerAuthor,
+			{ title: 'Self review', family: 'dipole', polarization: 'linear', summary: '' },
+			starterContent(868e6)
+		);
 		submitRevision(reviewerAuthor, revisionId);
 		expect(status(() => submitReview(reviewerAuthor, revisionId, ok()))).toBe(403);
 		expect(listQueue(reviewerAuthor).some((q) => q.title === 'Self review')).toBe(false);
@@ -116,18 +134,31 @@ describe('verdicts and the approval policy', () => {
 
 	it('reject waits for a moderator; confirmed, the revision is returned with the reject on record', () => {
 		const { id } = submitted();
-		const r = submitReview(tomas, id, { verdict: 'reject', summary: 'Measured VSWR never below 3.' });
+		const r = submitReview(tomas, id, {
+			verdict: 'reject',
+			summary: 'Measured VSWR never below 3.'
+		});
 		expect(r.state).toBe('reject_pending');
 		expect(stateOf(id)).toBe('submitted');
 		// Another reviewer's approve does not outvote a pending reject.
 		expect(submitReview(ines, id, ok()).state).toBe('reject_pending');
-		const rejectId = db.select().from(reviews).where(and(eq(reviews.revisionId, id), eq(reviews.verdict, 'reject'))).get()!.id;
+		const rejectId = db
+			.select()
+			.from(reviews)
+			.where(and(eq(reviews.revisionId, id), eq(reviews.verdict, 'reject')))
+			.get()!.id;
 		expect(status(() => confirmReject(tomas, rejectId))).toBe(403);
 		confirmReject(wren, rejectId);
 		expect(stateOf(id)).toBe('returned');
-		expect(db.select().from(reviews).where(eq(reviews.id, rejectId)).get()!.confirmedById).toBe(wren.id);
+		expect(db.select().from(reviews).where(eq(reviews.id, rejectId)).get()!.confirmedById).toBe(
+			wren.id
+		);
 		expect(status(() => confirmReject(wren, rejectId))).toBe(409);
-		const actions = db.select().from(auditLog).all().map((a) => a.action);
+		const actions = db
+			.select()
+			.from(auditLog)
+			.all()
+			.map((a) => a.action);
 		expect(actions).toContain('review.reject_confirm');
 	});
 
@@ -147,7 +178,11 @@ describe('verdicts and the approval policy', () => {
 
 	it('mails the author on each review, with a link to the review', () => {
 		const { slug, id } = submitted();
-		const before = db.select().from(mailQueue).where(eq(mailQueue.toAddress, author.email)).all().length;
+		const before = db
+			.select()
+			.from(mailQueue)
+			.where(eq(mailQueue.toAddress, author.email))
+			.all().length;
 		submitReview(tomas, id, { verdict: 'revise', summary: 'Please add the balun length.' });
 		const mails = db.select().from(mailQueue).where(eq(mailQueue.toAddress, author.email)).all();
 		expect(mails).toHaveLength(before + 1);
@@ -181,6 +216,8 @@ describe('queue', () => {
 		expect(panel.rejectPending).toBe(true);
 		expect(panel.canOpenReview).toBe(true);
 		expect(panel.previousNumber).toBeNull();
-		expect(reviewsPanelData(getRevision(design.id, 1)!, plain, history).reviewsPanel.canOpenReview).toBe(false);
+		expect(
+			reviewsPanelData(getRevision(design.id, 1)!, plain, history).reviewsPanel.canOpenReview
+		).toBe(false);
 	});
 });

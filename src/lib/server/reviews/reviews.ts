@@ -1,8 +1,21 @@
 /** Reviews and verdicts: the one place that writes the reviews table and decides revision states. */
 import { and, asc, eq, inArray, isNull, ne, sql } from 'drizzle-orm';
 import { db } from '../db';
-import { comments, designs, reviews, revisions, users, type Design, type Revision } from '../db/schema';
-import { APPROVAL_POLICY, decideRevisionState, type ApprovalPolicy, type PolicyState } from '$lib/server/reviews/policy';
+import {
+	comments,
+	designs,
+	reviews,
+	revisions,
+	users,
+	type Design,
+	type Revision
+} from '../db/schema';
+import {
+	APPROVAL_POLICY,
+	decideRevisionState,
+	type ApprovalPolicy,
+	type PolicyState
+} from '$lib/server/reviews/policy';
 import { reviewSchema, type VerdictValue } from '$lib/schemas/review';
 import { bandById } from '$lib/rf/catalogues/bands';
 import { DomainError } from '../http/errors';
@@ -15,7 +28,8 @@ import type { SessionUser } from '../accounts/auth';
 
 export const isReviewer = (u: SessionUser | null) =>
 	!!u && u.emailVerified && (u.role === 'reviewer' || u.role === 'moderator');
-export const isModerator = (u: SessionUser | null) => !!u && u.emailVerified && u.role === 'moderator';
+export const isModerator = (u: SessionUser | null) =>
+	!!u && u.emailVerified && u.role === 'moderator';
 
 export interface ReviewOptions {
 	now?: Date;
@@ -45,14 +59,23 @@ type Verdicts = ReturnType<typeof verdictsOf>;
 
 /** Verdicts as the approval policy reads them. */
 const policyVerdicts = (verdicts: Verdicts) =>
-	verdicts.map((v) => ({ reviewerId: v.reviewerId, verdict: v.verdict, createdAt: v.createdAt.getTime() }));
+	verdicts.map((v) => ({
+		reviewerId: v.reviewerId,
+		verdict: v.verdict,
+		createdAt: v.createdAt.getTime()
+	}));
 
 /** Where the policy puts a revision with these reviews (authors' own verdicts never count). */
-export function decisionFor(r: Revision, policy: ApprovalPolicy = APPROVAL_POLICY, verdicts: Verdicts = verdictsOf(r.id)) {
+export function decisionFor(
+	r: Revision,
+	policy: ApprovalPolicy = APPROVAL_POLICY,
+	verdicts: Verdicts = verdictsOf(r.id)
+) {
 	const decision = decideRevisionState(policyVerdicts(verdicts), policy, r.authorId);
 	// The policy names reviewers by id; people read names.
 	let reason = decision.reason;
-	for (const v of decision.current) reason = reason.split(v.reviewerId).join(ownerName(v.reviewerId));
+	for (const v of decision.current)
+		reason = reason.split(v.reviewerId).join(ownerName(v.reviewerId));
 	return { ...decision, reason };
 }
 
@@ -63,14 +86,26 @@ function assertReviewable(user: SessionUser, r: Revision, design: Design): void 
 		throw new DomainError(403, 'You cannot review your own revision.');
 	}
 	if (r.state === 'draft') throw new DomainError(404, 'No such revision.');
-	if (r.state === 'withdrawn') throw new DomainError(409, `r${r.number} was withdrawn by its author; it cannot be reviewed.`);
+	if (r.state === 'withdrawn')
+		throw new DomainError(409, `r${r.number} was withdrawn by its author; it cannot be reviewed.`);
 	if (r.state !== 'submitted') {
-		throw new DomainError(409, `r${r.number} is already decided (${r.state}); review the newest revision instead.`);
+		throw new DomainError(
+			409,
+			`r${r.number} is already decided (${r.state}); review the newest revision instead.`
+		);
 	}
 }
 
 /** Sets the revision's state from the policy's decision, inside the caller's transaction. */
-function applyDecision(tx: Tx, actorId: string, r: Revision, design: Design, state: PolicyState, reason: string, now: Date) {
+function applyDecision(
+	tx: Tx,
+	actorId: string,
+	r: Revision,
+	design: Design,
+	state: PolicyState,
+	reason: string,
+	now: Date
+) {
 	if (state !== 'approved' && state !== 'returned') return false;
 	const updated = tx
 		.update(revisions)
@@ -85,7 +120,10 @@ function applyDecision(tx: Tx, actorId: string, r: Revision, design: Design, sta
 			: undefined;
 		// The design shows its newest approved revision; approving an older one leaves that alone.
 		if (!shown || shown.number < r.number) {
-			tx.update(designs).set({ shownRevisionId: r.id, updatedAt: now }).where(eq(designs.id, design.id)).run();
+			tx.update(designs)
+				.set({ shownRevisionId: r.id, updatedAt: now })
+				.where(eq(designs.id, design.id))
+				.run();
 		}
 	}
 	audit(
@@ -120,10 +158,23 @@ export function submitReview(
 		assertReviewable(user, r, design);
 		const id = newId();
 		tx.insert(reviews)
-			.values({ id, revisionId: r.id, reviewerId: user.id, verdict: parsed.data.verdict, summary: parsed.data.summary, createdAt: now })
+			.values({
+				id,
+				revisionId: r.id,
+				reviewerId: user.id,
+				verdict: parsed.data.verdict,
+				summary: parsed.data.summary,
+				createdAt: now
+			})
 			.run();
 		audit(
-			{ actorId: user.id, action: 'review.submit', targetType: 'revision', targetId: r.id, details: { review: id, verdict: parsed.data.verdict, number: r.number } },
+			{
+				actorId: user.id,
+				action: 'review.submit',
+				targetType: 'revision',
+				targetId: r.id,
+				details: { review: id, verdict: parsed.data.verdict, number: r.number }
+			},
 			tx
 		);
 		const decision = decideRevisionState(
@@ -134,7 +185,14 @@ export function submitReview(
 		const changed = applyDecision(tx, user.id, r, design, decision.state, decision.reason, now);
 		if (options.notify !== false) {
 			notifyReview(
-				{ design, revision: r, reviewerName: user.displayName, verdict: parsed.data.verdict, summary: parsed.data.summary, reviewId: id },
+				{
+					design,
+					revision: r,
+					reviewerName: user.displayName,
+					verdict: parsed.data.verdict,
+					summary: parsed.data.summary,
+					reviewId: id
+				},
 				tx
 			);
 		}
@@ -154,19 +212,40 @@ export function confirmReject(user: SessionUser, reviewId: string, options: Revi
 	const designId = db.transaction((tx) => {
 		const review = tx.select().from(reviews).where(eq(reviews.id, reviewId)).get();
 		if (!review) throw new DomainError(404, 'No such review.');
-		if (review.verdict !== 'reject') throw new DomainError(409, 'Only a reject verdict needs confirming.');
+		if (review.verdict !== 'reject')
+			throw new DomainError(409, 'Only a reject verdict needs confirming.');
 		if (review.confirmedAt) throw new DomainError(409, 'This rejection is already confirmed.');
 		const r = tx.select().from(revisions).where(eq(revisions.id, review.revisionId)).get()!;
 		const design = tx.select().from(designs).where(eq(designs.id, r.designId)).get()!;
-		if (r.state !== 'submitted') throw new DomainError(409, `r${r.number} is ${r.state}; there is nothing to confirm.`);
-		if (r.authorId === user.id) throw new DomainError(403, 'You cannot confirm a rejection of your own revision.');
-		tx.update(reviews).set({ confirmedById: user.id, confirmedAt: now }).where(eq(reviews.id, review.id)).run();
+		if (r.state !== 'submitted')
+			throw new DomainError(409, `r${r.number} is ${r.state}; there is nothing to confirm.`);
+		if (r.authorId === user.id)
+			throw new DomainError(403, 'You cannot confirm a rejection of your own revision.');
+		tx.update(reviews)
+			.set({ confirmedById: user.id, confirmedAt: now })
+			.where(eq(reviews.id, review.id))
+			.run();
 		audit(
-			{ actorId: user.id, action: 'review.reject_confirm', targetType: 'review', targetId: review.id, details: { revision: r.id, number: r.number } },
+			{
+				actorId: user.id,
+				action: 'review.reject_confirm',
+				targetType: 'review',
+				targetId: review.id,
+				details: { revision: r.id, number: r.number }
+			},
 			tx
 		);
-		applyDecision(tx, user.id, r, design, 'returned', `Rejection by ${ownerName(review.reviewerId)} confirmed by ${user.displayName}.`, now);
-		if (options.notify !== false) notifyRejectConfirmed({ design, revision: r, moderatorName: user.displayName }, tx);
+		applyDecision(
+			tx,
+			user.id,
+			r,
+			design,
+			'returned',
+			`Rejection by ${ownerName(review.reviewerId)} confirmed by ${user.displayName}.`,
+			now
+		);
+		if (options.notify !== false)
+			notifyRejectConfirmed({ design, revision: r, moderatorName: user.displayName }, tx);
 		return design.id;
 	});
 	reindexDesign(designId);
@@ -182,7 +261,10 @@ export interface ReviewView {
 	confirmedAt: string | null;
 }
 
-export function reviewsFor(revisionId: string, verdicts: Verdicts = verdictsOf(revisionId)): ReviewView[] {
+export function reviewsFor(
+	revisionId: string,
+	verdicts: Verdicts = verdictsOf(revisionId)
+): ReviewView[] {
 	return verdicts.map((v) => ({
 		id: v.id,
 		verdict: v.verdict,
@@ -229,9 +311,13 @@ export function listQueue(user: SessionUser, filters: QueueFilters = {}) {
 		.orderBy(asc(revisions.submittedAt), asc(revisions.createdAt))
 		.all();
 	const band = filters.band ? bandById(filters.band) : undefined;
-	const inBand = rows.filter((r) => !band || (r.designHz >= band.lo_hz && r.designHz <= band.hi_hz));
+	const inBand = rows.filter(
+		(r) => !band || (r.designHz >= band.lo_hz && r.designHz <= band.hi_hz)
+	);
 	const ids = inBand.map((r) => r.revisionId);
-	const allReviews = ids.length ? db.select().from(reviews).where(inArray(reviews.revisionId, ids)).all() : [];
+	const allReviews = ids.length
+		? db.select().from(reviews).where(inArray(reviews.revisionId, ids)).all()
+		: [];
 	const myComments = ids.length
 		? new Set(
 				db
@@ -246,7 +332,11 @@ export function listQueue(user: SessionUser, filters: QueueFilters = {}) {
 		.map((r) => {
 			const own = allReviews.filter((v) => v.revisionId === r.revisionId);
 			const decision = decideRevisionState(
-				own.map((v) => ({ reviewerId: v.reviewerId, verdict: v.verdict, createdAt: v.createdAt.getTime() })),
+				own.map((v) => ({
+					reviewerId: v.reviewerId,
+					verdict: v.verdict,
+					createdAt: v.createdAt.getTime()
+				})),
 				APPROVAL_POLICY,
 				r.authorId
 			);
@@ -278,13 +368,17 @@ export function reviewsPanelData(
 ) {
 	const verdicts = r.state === 'draft' ? [] : verdictsOf(r.id);
 	const threads = threadsQuery.all({ revisionId: r.id });
-	const previous = history.find((p) => p.number < r.number && (p.state !== 'draft' || p.authorId === user?.id));
+	const previous = history.find(
+		(p) => p.number < r.number && (p.state !== 'draft' || p.authorId === user?.id)
+	);
 	return {
 		reviewsPanel: {
 			reviews: reviewsFor(r.id, verdicts),
 			threads: threads.length,
 			openThreads: threads.filter((t) => t.resolvedAt === null).length,
-			rejectPending: r.state === 'submitted' && decisionFor(r, APPROVAL_POLICY, verdicts).state === 'reject_pending',
+			rejectPending:
+				r.state === 'submitted' &&
+				decisionFor(r, APPROVAL_POLICY, verdicts).state === 'reject_pending',
 			canOpenReview: r.state !== 'draft' && (isReviewer(user) || user?.id === r.authorId),
 			previousNumber: previous?.number ?? null
 		}

@@ -8,13 +8,55 @@ import { seedDesigns } from './designs';
 import { seedReviews } from './reviews';
 import { resolve } from 'node:path';
 
-const DEMO_ACCOUNTS: { email: string; displayName: string; password: string; role: Role; verified: boolean }[] = [
-	{ email: 'wren@lanternhill.example', displayName: 'Wren Okafor (demo)', password: 'demo-moderator-2026', role: 'moderator', verified: true },
-	{ email: 'tomas@lanternhill.example', displayName: 'Tomas Varga (demo)', password: 'demo-reviewer-2026', role: 'reviewer', verified: true },
-	{ email: 'ines@lanternhill.example', displayName: 'Ines Halvorsen (demo)', password: 'demo-reviewer-2026', role: 'reviewer', verified: true },
-	{ email: 'priya@lanternhill.example', displayName: 'Priya Nandakumar (demo)', password: 'demo-member-2026', role: 'member', verified: true },
-	{ email: 'jules@lanternhill.example', displayName: 'Jules Mbeki (demo)', password: 'demo-member-2026', role: 'member', verified: true },
-	{ email: 'newcomer@lanternhill.example', displayName: 'Sam Newcomer (demo)', password: 'demo-member-2026', role: 'member', verified: false }
+const DEMO_ACCOUNTS: {
+	email: string;
+	displayName: string;
+	password: string;
+	role: Role;
+	verified: boolean;
+}[] = [
+	{
+		email: 'wren@lanternhill.example',
+		displayName: 'Wren Okafor (demo)',
+		password: 'demo-moderator-2026',
+		role: 'moderator',
+		verified: true
+	},
+	{
+		email: 'tomas@lanternhill.example',
+		displayName: 'Tomas Varga (demo)',
+		password: 'demo-reviewer-2026',
+		role: 'reviewer',
+		verified: true
+	},
+	{
+		email: 'ines@lanternhill.example',
+		displayName: 'Ines Halvorsen (demo)',
+		password: 'demo-reviewer-2026',
+		role: 'reviewer',
+		verified: true
+	},
+	{
+		email: 'priya@lanternhill.example',
+		displayName: 'Priya Nandakumar (demo)',
+		password: 'demo-member-2026',
+		role: 'member',
+		verified: true
+	},
+	{
+		email: 'jules@lanternhill.example',
+		displayName: 'Jules Mbeki (demo)',
+		password: 'demo-member-2026',
+		role: 'member',
+		verified: true
+	},
+	{
+		email: 'newcomer@lanternhill.example',
+		displayName: 'Sam Newcomer (demo)',
+		password: 'demo-member-2026',
+		role: 'member',
+		verified: false
+	}
 ];
 
 export function isEmpty(): boolean {

@@ -39,13 +39,21 @@ export function seedDesigns(dir: string, log: (line: string) => void = console.l
 		const design = getDesignBySlug(entry.slug);
 		if (entry.number === 1) {
 			if (design) continue;
-			const created = createDesign(owner, { title, slug: slug ?? entry.slug, family, polarization, summary }, content, { isDemo: true });
+			const created = createDesign(
+				owner,
+				{ title, slug: slug ?? entry.slug, family, polarization, summary },
+				content,
+				{ isDemo: true }
+			);
 			submitRevision(owner, created.revisionId);
 		} else {
 			if (!design) throw new Error(`${entry.file}: r1 of ${entry.slug} is missing`);
 			if (getRevision(design.id, entry.number)) continue;
 			const draft = startRevision(owner, design);
-			if (draft.number !== entry.number) throw new Error(`${entry.file}: expected r${entry.number}, the design is at r${draft.number}`);
+			if (draft.number !== entry.number)
+				throw new Error(
+					`${entry.file}: expected r${entry.number}, the design is at r${draft.number}`
+				);
 			saveDraft(owner, draft.id, content);
 			submitRevision(owner, draft.id);
 		}

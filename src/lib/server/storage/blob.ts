@@ -10,7 +10,6 @@ export interface BlobStore {
 	delete(key: string): Promise<void>;
 }
 
-
 export type BlobField = 'key' | 'prefix' | 'bytes' | 'contentType';
 
 /** A key, prefix, byte array or content type is unusable; nothing was stored. */

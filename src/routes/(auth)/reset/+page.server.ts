@@ -7,7 +7,9 @@ import { sendResetMail } from '$lib/server/accounts/account-mail';
 import { isLimited } from '$lib/server/http/rate-limit';
 import type { Actions, PageServerLoad } from './$types';
 
-export const load: PageServerLoad = async () => ({ form: await superValidate(zod4(resetRequestSchema)) });
+export const load: PageServerLoad = async () => ({
+	form: await superValidate(zod4(resetRequestSchema))
+});
 
 export const actions: Actions = {
 	default: async (event) => {
@@ -17,7 +19,8 @@ export const actions: Actions = {
 		}
 		if (!form.valid) return fail(400, { form });
 		const user = findUserByEmail(form.data.email);
-		if (user && !user.disabledAt) await sendResetMail(user.email, issueEmailToken(user.id, 'reset_password'));
+		if (user && !user.disabledAt)
+			await sendResetMail(user.email, issueEmailToken(user.id, 'reset_password'));
 		// Same page either way: the answer never tells whether the address has an account.
 		redirect(303, '/reset?sent=1');
 	}

@@ -24,7 +24,9 @@ export const actions: Actions = {
 		const { password } = form.data;
 		form.data.password = '';
 		if (await isLimited('signIn', event)) {
-			return message(form, 'Too many sign-in attempts. Wait a minute and try again.', { status: 429 });
+			return message(form, 'Too many sign-in attempts. Wait a minute and try again.', {
+				status: 429
+			});
 		}
 		if (!form.valid) return fail(400, { form });
 		const user = await checkCredentials(form.data.email, password);

@@ -30,7 +30,11 @@ export const actions: Actions = {
 		const created = await createAccount({ ...form.data, password });
 		// The same answer whether or not the address already had an account (ASVS 6.3.8).
 		if (created) {
-			await sendVerificationMail(created.email, form.data.displayName, issueEmailToken(created.id, 'verify_email'));
+			await sendVerificationMail(
+				created.email,
+				form.data.displayName,
+				issueEmailToken(created.id, 'verify_email')
+			);
 		} else {
 			await sendAlreadyRegisteredMail(form.data.email.toLowerCase());
 		}

@@ -30,8 +30,13 @@ export const actions: Actions = {
 	resend: async (event) => {
 		const user = requireUser();
 		if (user.emailVerified) return { resent: false, message: 'Your address is already confirmed.' };
-		if (await isLimited('reset', event)) return fail(429, { message: 'Too many requests; wait a few minutes.' });
-		await sendVerificationMail(user.email, user.displayName, issueEmailToken(user.id, 'verify_email'));
+		if (await isLimited('reset', event))
+			return fail(429, { message: 'Too many requests; wait a few minutes.' });
+		await sendVerificationMail(
+			user.email,
+			user.displayName,
+			issueEmailToken(user.id, 'verify_email')
+		);
 		return { resent: true, message: 'A new confirmation link is on its way.' };
 	},
 	notifications: async (event) => {

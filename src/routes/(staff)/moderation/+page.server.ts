@@ -26,7 +26,8 @@ export const actions: Actions = {
 	setRole: async ({ request }) => {
 		const actor = requireRole('moderator');
 		const form = await superValidate(request, zod4(roleChangeSchema));
-		if (!form.valid) return fail(400, { message: 'Choose a user and one of member, reviewer, moderator.' });
+		if (!form.valid)
+			return fail(400, { message: 'Choose a user and one of member, reviewer, moderator.' });
 		const result = setRole(actor.id, form.data.userId, form.data.role);
 		if (!result.ok) return fail(400, { message: result.message });
 		return { message: `Role changed from ${result.from} to ${result.to}.` };

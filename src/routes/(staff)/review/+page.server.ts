@@ -14,11 +14,16 @@ export const load: PageServerLoad = ({ url }) => {
 	const now = Date.now();
 	return {
 		filters: { family, band, mine },
-		ignored: (familyParam && !family) || (bandParam && !band) ? 'An unknown family or band in the address was ignored.' : null,
+		ignored:
+			(familyParam && !family) || (bandParam && !band)
+				? 'An unknown family or band in the address was ignored.'
+				: null,
 		bands: BANDS.map((b) => ({ id: b.id, name: b.name })),
 		queue: listQueue(user, { family, band, mine }).map((q) => ({
 			...q,
-			ageDays: q.submittedAt ? Math.max(0, Math.floor((now - Date.parse(q.submittedAt)) / 86_400_000)) : null
+			ageDays: q.submittedAt
+				? Math.max(0, Math.floor((now - Date.parse(q.submittedAt)) / 86_400_000))
+				: null
 		}))
 	};
 };

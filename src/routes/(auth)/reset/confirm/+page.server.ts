@@ -12,7 +12,9 @@ export const load: PageServerLoad = async ({ url }) => {
 	const token = url.searchParams.get('token') ?? '';
 	if (!token) error(400, TOKEN_MESSAGES.invalid);
 	const check = peekEmailToken(token, 'reset_password');
-	const form = await superValidate({ token, password: '' }, zod4(resetConfirmSchema), { errors: false });
+	const form = await superValidate({ token, password: '' }, zod4(resetConfirmSchema), {
+		errors: false
+	});
 	return { form, problem: check.ok ? null : TOKEN_MESSAGES[check.reason] };
 };
 

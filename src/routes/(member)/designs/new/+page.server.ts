@@ -19,7 +19,8 @@ export const actions: Actions = {
 	create: async (event) => {
 		const user = requireVerifiedMember();
 		const form = await superValidate(event.request, zod4(newDesignSchema));
-		if (await isLimited('write', event)) return message(form, 'Too many changes at once; wait a minute.', { status: 429 });
+		if (await isLimited('write', event))
+			return message(form, 'Too many changes at once; wait a minute.', { status: 429 });
 		if (!form.valid) return fail(400, { form });
 		const f = parseFrequency(form.data.frequency);
 		if (!f.ok) return setError(form, 'frequency', f.message);
@@ -35,11 +36,13 @@ export const actions: Actions = {
 	/** Starts a draft from a design file (.md with front matter), through the same parser as export. */
 	import: async (event) => {
 		const user = requireVerifiedMember();
-		if (await isLimited('write', event)) return fail(429, { importError: 'Too many changes at once; wait a minute.' });
+		if (await isLimited('write', event))
+			return fail(429, { importError: 'Too many changes at once; wait a minute.' });
 		const form = await readForm(event.request, importDesignSchema, { files: true });
 		if (!form.valid) return fail(400, { importError: firstProblem(form).message });
 		const { file } = form.data;
-		if (file.size > MAX_DESIGN_FILE_BYTES) return fail(413, { importError: 'The design file is larger than 512 kB.' });
+		if (file.size > MAX_DESIGN_FILE_BYTES)
+			return fail(413, { importError: 'The design file is larger than 512 kB.' });
 		const parsed = parseDesignFile(await file.text());
 		if (!parsed.ok) return fail(422, { importError: parsed.error.message });
 		const { title, slug, family, polarization, summary, ...content } = parsed.value;

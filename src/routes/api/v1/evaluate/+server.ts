@@ -5,6 +5,7 @@ import type { RequestHandler } from './$types';
 
 export const POST: RequestHandler = (event) =>
 	handleApi(async () => {
-		if (await isLimited('compute', event)) return apiError(429, 'Too many requests. Wait a minute.', { field: 'body' });
+		if (await isLimited('compute', event))
+			return apiError(429, 'Too many requests. Wait a minute.', { field: 'body' });
 		return jsonText(JSON.stringify(evaluateBody(await readJson(event.request))));
 	});

@@ -1,10 +1,14 @@
 /** Number formatting for diff views (display only). */
-export const mm = (v: number | null | undefined) => (v === null || v === undefined ? '—' : `${v.toFixed(2)} mm`);
+export const mm = (v: number | null | undefined) =>
+	v === null || v === undefined ? '—' : `${v.toFixed(2)} mm`;
 
-export const signedMm = (v: number | null) => (v === null ? '—' : `${v > 0 ? '+' : v < 0 ? '−' : '±'}${Math.abs(v).toFixed(2)} mm`);
+export const signedMm = (v: number | null) =>
+	v === null ? '—' : `${v > 0 ? '+' : v < 0 ? '−' : '±'}${Math.abs(v).toFixed(2)} mm`;
 
 export const signedPct = (v: number | null) =>
-	v === null ? '—' : `${v > 0 ? '+' : v < 0 ? '−' : '±'}${Math.abs(v) >= 10 ? Math.abs(v).toFixed(1) : Math.abs(v).toFixed(2)} %`;
+	v === null
+		? '—'
+		: `${v > 0 ? '+' : v < 0 ? '−' : '±'}${Math.abs(v) >= 10 ? Math.abs(v).toFixed(1) : Math.abs(v).toFixed(2)} %`;
 
 export const CHANGE_LABELS: Record<string, string> = {
 	added: 'added',

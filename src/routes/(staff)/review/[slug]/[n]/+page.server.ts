@@ -2,7 +2,14 @@ import { error, fail, redirect } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/http/guards';
 import { compareRevisions, readableRevisions } from '$lib/server/reviews/compare';
 import { addComment, listThreads, noteLineCount, setResolved } from '$lib/server/reviews/comments';
-import { confirmReject, decisionFor, isModerator, isReviewer, reviewsFor, submitReview } from '$lib/server/reviews/reviews';
+import {
+	confirmReject,
+	decisionFor,
+	isModerator,
+	isReviewer,
+	reviewsFor,
+	submitReview
+} from '$lib/server/reviews/reviews';
 import { actionFailure, firstProblem, readForm } from '$lib/server/http/actions';
 import { isLimited } from '$lib/server/http/rate-limit';
 import { getDesignBySlug } from '$lib/server/designs/lookups';
@@ -28,9 +35,15 @@ function open(event: Pick<RequestEvent, 'params' | 'locals'>, forAction = false)
 	const user = requireUser();
 	const design = getDesignBySlug(event.params.slug);
 	if (!design) error(404, 'No design has this address.');
-	const r = /^\d{1,6}$/.test(event.params.n) ? getRevision(design.id, Number(event.params.n)) : null;
+	const r = /^\d{1,6}$/.test(event.params.n)
+		? getRevision(design.id, Number(event.params.n))
+		: null;
 	if (!r) error(404, `This design has no revision r${event.params.n}.`);
-	if (!canRead(user, r)) error(forAction ? 403 : 404, forAction ? 'This draft is not yours.' : `This design has no revision r${event.params.n}.`);
+	if (!canRead(user, r))
+		error(
+			forAction ? 403 : 404,
+			forAction ? 'This draft is not yours.' : `This design has no revision r${event.params.n}.`
+		);
 	if (!isReviewer(user) && user.id !== r.authorId && user.id !== design.ownerId) {
 		error(403, 'The review page is for reviewers and the revision’s author.');
 	}
@@ -58,7 +71,11 @@ export const load: PageServerLoad = (event) => {
 		previousNumber: prev?.number ?? null,
 		// The review reads the table at the design frequency against the claimed band: the default view.
 		table: tableForView(r, parseViewState(new URLSearchParams(), r).view),
-		tolerances: Object.fromEntries(contentOf(r).rows.filter((row) => row.tolerance_mm !== undefined).map((row) => [row.key, row.tolerance_mm as number])),
+		tolerances: Object.fromEntries(
+			contentOf(r)
+				.rows.filter((row) => row.tolerance_mm !== undefined)
+				.map((row) => [row.key, row.tolerance_mm as number])
+		),
 		rowKeys: contentOf(r).rows.map((row) => ({ key: row.key, label: row.label })),
 		rowsDiff: diff.rows,
 		notes: diff.notesSideBySide,
@@ -68,7 +85,9 @@ export const load: PageServerLoad = (event) => {
 		decision: decision && { state: decision.state, reason: decision.reason },
 		pendingRejects:
 			decision?.state === 'reject_pending' && isModerator(user)
-				? reviews.filter((v) => v.verdict === 'reject' && !v.confirmedAt).map((v) => ({ id: v.id, reviewerName: v.reviewerName }))
+				? reviews
+						.filter((v) => v.verdict === 'reject' && !v.confirmedAt)
+						.map((v) => ({ id: v.id, reviewerName: v.reviewerName }))
 				: [],
 		can: {
 			review: isReviewer(user) && !isAuthor && r.state === 'submitted',
@@ -99,7 +118,12 @@ export const actions: Actions = {
 		if (await isLimited('write', event)) return tooMany('comment', values);
 		if (!form.valid) {
 			const p = firstProblem(form);
-			return fail(422, { action: 'comment', message: `${p.field}: ${p.message}`, field: p.field, values });
+			return fail(422, {
+				action: 'comment',
+				message: `${p.field}: ${p.message}`,
+				field: p.field,
+				values
+			});
 		}
 		let id: string;
 		try {

@@ -13,12 +13,20 @@ export const GET: RequestHandler = async (event) => {
 		const design = getDesignBySlug(params.slug);
 		if (!design) return apiError(404, 'No design has this address.');
 		const q = url.searchParams;
-		const { from, to, hz } = resolveCompare(design, { from: q.get('from'), to: q.get('to'), f: q.get('f') }, locals.user);
+		const { from, to, hz } = resolveCompare(
+			design,
+			{ from: q.get('from'), to: q.get('to'), f: q.get('f') },
+			locals.user
+		);
 		const diff = compareRevisions(from, to, hz);
 		const hasDraft = from.state === 'draft' || to.state === 'draft';
 		return json(
 			{ design: design.slug, ...diff },
-			{ headers: { 'cache-control': hasDraft || locals.user ? 'private, no-store' : 'public, max-age=60' } }
+			{
+				headers: {
+					'cache-control': hasDraft || locals.user ? 'private, no-store' : 'public, max-age=60'
+				}
+			}
 		);
 	});
 };

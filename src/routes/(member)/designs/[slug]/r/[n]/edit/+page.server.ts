@@ -29,7 +29,11 @@ async function save(event: Parameters<Actions[string]>[0], andSubmit: boolean) {
 	const editor = editorFromForm(posted.data);
 	const parsed = editorToContent(editor);
 	if (!parsed.ok) {
-		return fail(400, { message: 'Nothing was saved: fix the fields marked below.', errors: parsed.errors, editor });
+		return fail(400, {
+			message: 'Nothing was saved: fix the fields marked below.',
+			errors: parsed.errors,
+			editor
+		});
 	}
 	try {
 		saveDraft(user, r.id, parsed.content);

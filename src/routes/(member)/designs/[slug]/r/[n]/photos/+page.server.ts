@@ -1,6 +1,10 @@
 import { requireVerifiedMember } from '$lib/server/http/guards';
 import { loadDesignRevision } from '$lib/server/designs/revision-view';
-import { addAttachment, MAX_IMAGE_BYTES, MAX_IMAGE_PIXELS } from '$lib/server/measurements/attachments';
+import {
+	addAttachment,
+	MAX_IMAGE_BYTES,
+	MAX_IMAGE_PIXELS
+} from '$lib/server/measurements/attachments';
 import { uploadAccess } from '$lib/server/measurements/uploads';
 import { uploadAction } from '$lib/server/measurements/upload-action';
 import type { Actions, PageServerLoad } from './$types';
