@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# npm test: type checks, unit tests, then end-to-end tests in Debian's Chromium against the production build.
+# npm test: type checks, lint, unit tests, then end-to-end tests in Debian's Chromium against the production build.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 
@@ -15,6 +15,8 @@ fi
 
 echo "== svelte-check"
 npm run --silent check
+echo "== lint (Prettier, ESLint with the import-cycle check, knip)"
+npm run --silent lint
 echo "== unit tests (vitest)"
 npx vitest run
 echo "== production build"

@@ -15,7 +15,7 @@ const outboxDir = () => join(process.env.E2E_DATA_DIR!, 'outbox');
 
 /** Raw text of every captured mail to `to`, oldest first (quoted-printable soft breaks undone). */
 export function mailsTo(to: string): string[] {
-	let files: string[] = [];
+	let files: string[];
 	try {
 		files = readdirSync(outboxDir())
 			.filter((f) => f.endsWith('.eml'))

@@ -58,13 +58,11 @@ async function importDesign(page: Page, submit = true) {
 	await page.goto('/designs/new');
 	// Attach the file after hydration, or the hydrated form starts without it.
 	await page.waitForLoadState('networkidle');
-	await page
-		.getByLabel('Design file')
-		.setInputFiles({
-			name: `${slug}.md`,
-			mimeType: 'text/markdown',
-			buffer: Buffer.from(designFile(slug, title))
-		});
+	await page.getByLabel('Design file').setInputFiles({
+		name: `${slug}.md`,
+		mimeType: 'text/markdown',
+		buffer: Buffer.from(designFile(slug, title))
+	});
 	await page.getByRole('button', { name: /import/i }).click();
 	await expect(page).toHaveURL(new RegExp(`/designs/${slug}/r/1/edit`));
 	if (submit) {

@@ -86,7 +86,6 @@ export const measurementFormSchema = z.object({
 	quantity: optionalChoice(CSV_QUANTITIES, 'CSV quantity'),
 	freq_unit: optionalChoice(FREQUENCY_UNITS, 'frequency unit')
 });
-export type MeasurementForm = z.infer<typeof measurementFormSchema>;
 
 /** "What I built": only for a build report on someone else's revision. */
 export const buildReportSchema = z.object({

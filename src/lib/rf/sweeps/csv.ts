@@ -1,6 +1,6 @@
 import { HZ_PER_UNIT, MAX_SWEEP_FREQUENCY_HZ } from '../units/frequency';
 import { FREQUENCY_UNITS } from './types';
-import type { CsvQuantity, FrequencyUnit, ParseSweepOptions, SweepParseResult } from './types';
+import type { CsvQuantity, ParseSweepOptions, SweepParseResult } from './types';
 import {
 	FREQUENCY_RANGE,
 	MAX_SWEEP_POINTS,

@@ -1,5 +1,5 @@
 import { parseCsvSweep } from './csv';
-import { MAX_SWEEP_POINTS, parseTouchstone } from './touchstone';
+import { parseTouchstone } from './touchstone';
 import type {
 	CsvQuantity,
 	FrequencyUnit,

@@ -46,7 +46,9 @@ function bestWindow(toks: Token[], size: number): { from: number; score: number 
 		const seen = new Set<number>();
 		let hits = 0;
 		for (let i = from; i < Math.min(toks.length, from + size); i++) {
-			if (toks[i].term >= 0) (seen.add(toks[i].term), hits++);
+			if (toks[i].term < 0) continue;
+			seen.add(toks[i].term);
+			hits++;
 		}
 		const score = seen.size * 1000 + hits;
 		if (score > best.score) best = { from, score };

@@ -3,12 +3,7 @@ import { asc, eq, getTableColumns, sql } from 'drizzle-orm';
 import { parseSweep, type AnalyzeQuery } from '$lib/rf/sweeps/sweep';
 import { analyzeSweep, type AnalyzeOptions, type AnalyzeResult } from '$lib/rf/sweeps/claim-check';
 import type { Sweep } from '$lib/rf/sweeps/types';
-import {
-	buildReportSchema,
-	firstIssue,
-	measurementFormSchema,
-	type MeasurementForm
-} from '$lib/schemas/measurement';
+import { buildReportSchema, firstIssue, measurementFormSchema } from '$lib/schemas/measurement';
 import { formatFrequency } from '$lib/rf/units/frequency';
 import { db } from '../db';
 import { measurements, users, type Revision } from '../db/schema';
