@@ -261,3 +261,30 @@ test('an error page shows the id handleError gave, so a reader can quote it', as
 	await expect(page.getByTestId('error-page')).toContainText('Not found');
 	await expect(page.getByTestId('error-id')).toHaveText(/^[0-9a-f-]{36}$/);
 });
+
+test('the formula guide and the editor help list the family functions from their one declaration', async ({
+	page
+}) => {
+	await page.goto('/guide/formulas');
+	for (const call of [
+		'patch_width(f, er)',
+		'te11_cutoff(d, er?)',
+		'guide_wavelength(f, d, er?)',
+		'mismatch_loss(v)'
+	]) {
+		await expect(page.getByRole('cell', { name: call, exact: true })).toBeVisible();
+	}
+	// Pozar §3.4 with PTFE (εr 2.08), a = 0.5 cm: TE11 cutoff 12.18 GHz [calc].
+	await expect(page.getByRole('row', { name: /te11_cutoff\(d, er\?\)/ })).toContainText(
+		'12.18 GHz'
+	);
+	await signIn(page, DEMO.author);
+	await page.goto('/designs/new');
+	await page.locator('input[name=title]').fill(`Help ${unique('h')}`);
+	await page.locator('select[name=family]').selectOption('dipole');
+	await page.locator('select[name=polarization]').selectOption('linear');
+	await page.locator('input[name=frequency]').fill('868 MHz');
+	await page.getByRole('button', { name: 'Create draft r1' }).click();
+	await page.getByText('Built-in functions for formulas').click();
+	await expect(page.getByTestId('function-help')).toContainText('guide_wavelength(f, d, er?)');
+});

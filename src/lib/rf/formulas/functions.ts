@@ -2,7 +2,7 @@
  * The allow-list of functions a formula may call, each with its dimension rule and its plain-number
  * implementation on SI values. Anything not listed here is rejected at compile time.
  */
-import * as fam from './families';
+import { DECLARATIONS, type Quantity } from './declarations';
 import {
 	DIMLESS,
 	FREQUENCY,
@@ -89,9 +89,8 @@ const fixed = (
 	impl
 });
 
-const F = FREQUENCY;
-const L = LENGTH;
 const N = DIMLESS;
+const DIMS_OF: Record<Quantity, Dims> = { frequency: FREQUENCY, length: LENGTH, number: DIMLESS };
 
 export const FUNCTIONS: ReadonlyMap<string, FunctionSpec> = new Map<string, FunctionSpec>([
 	['sqrt', fixed(1, 1, (a) => powDims(a[0].dims, 0.5), Math.sqrt)],
@@ -114,87 +113,17 @@ export const FUNCTIONS: ReadonlyMap<string, FunctionSpec> = new Map<string, Func
 	],
 	['log10', fixed(1, 1, plain('log10'), Math.log10)],
 	['exp', fixed(1, 1, plain('exp'), Math.exp)],
-	['patch_width', fixed(2, 2, typed('patch_width', [F, N], L), fam.patchWidth)],
-	['patch_eeff', fixed(3, 3, typed('patch_eeff', [N, L, L], N), fam.patchEeff)],
-	['patch_dl', fixed(3, 3, typed('patch_dl', [L, L, N], L), fam.patchDeltaL)],
-	['patch_length', fixed(3, 3, typed('patch_length', [F, N, L], L), fam.patchLength)],
-	[
-		'te11_cutoff',
-		fixed(
-			1,
-			2,
-			typed('te11_cutoff', [L, N], F),
-			guarded('te11_cutoff', 'diameter must be positive', fam.te11Cutoff)
-		)
-	],
-	[
-		'tm01_cutoff',
-		fixed(
-			1,
-			2,
-			typed('tm01_cutoff', [L, N], F),
-			guarded('tm01_cutoff', 'diameter must be positive', fam.tm01Cutoff)
-		)
-	],
-	[
-		'guide_wavelength',
-		fixed(
-			2,
-			3,
-			typed('guide_wavelength', [F, L, N], L),
-			guarded(
-				'guide_wavelength',
-				'the frequency is at or below the TE11 cutoff of this diameter',
-				fam.guideWavelength
-			)
-		)
-	],
-	[
-		'vf_from_er',
-		fixed(
-			1,
-			1,
-			typed('vf_from_er', [N], N),
-			guarded('vf_from_er', 'er must be positive', fam.vfFromEr)
-		)
-	],
-	['lambda_in', fixed(2, 2, typed('lambda_in', [F, N], L), fam.lambdaIn)],
-	[
-		'vswr_from_rl',
-		fixed(
-			1,
-			1,
-			typed('vswr_from_rl', [N], N),
-			guarded('vswr_from_rl', 'return loss must be ≥ 0 dB', fam.vswrFromRl)
-		)
-	],
-	[
-		'rl_from_vswr',
-		fixed(
-			1,
-			1,
-			typed('rl_from_vswr', [N], N),
-			guarded('rl_from_vswr', 'VSWR must be ≥ 1', fam.rlFromVswr)
-		)
-	],
-	[
-		'gamma_from_vswr',
-		fixed(
-			1,
-			1,
-			typed('gamma_from_vswr', [N], N),
-			guarded('gamma_from_vswr', 'VSWR must be ≥ 1', fam.gammaFromVswr)
-		)
-	],
-	[
-		'mismatch_loss',
-		fixed(
-			1,
-			1,
-			typed('mismatch_loss', [N], N),
-			guarded('mismatch_loss', 'VSWR must be ≥ 1', fam.mismatchLoss)
-		)
-	]
+	// The family functions, one entry per declaration (declarations.ts).
+	...DECLARATIONS.map((d): [string, FunctionSpec] => {
+		const required = d.args.filter((x) => x.default === undefined).length;
+		const dims = typed(
+			d.name,
+			d.args.map((x) => DIMS_OF[x.quantity]),
+			DIMS_OF[d.result]
+		);
+		const impl = d.domain ? guarded(d.name, d.domain, d.impl) : d.impl;
+		return [d.name, fixed(required, d.args.length, dims, impl)];
+	})
 ]);
 
 /** Handled by the compiler itself (pow needs a constant exponent; snap a catalogue name). */

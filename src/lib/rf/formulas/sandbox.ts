@@ -8,7 +8,7 @@
 import { LRUCache } from 'lru-cache';
 import { all, create, type MathNode, type Unit } from 'mathjs';
 import { snapValue, isCatalogueId } from '../catalogues/stock';
-import * as fam from './families';
+import { DECLARATIONS, type Quantity as Kind } from './declarations';
 import type { Dims } from './dims';
 
 const math = create(all);
@@ -18,37 +18,33 @@ const si = (x: Quantity): number => (typeof x === 'number' ? x : (x.value as num
 const metres = (v: number): Unit => math.unit(v, 'm');
 const hertz = (v: number): Unit => math.unit(v, 'Hz');
 
-/** Unit-aware versions of the family functions and snap, so mathjs can evaluate the same formulas. */
+/**
+ * Unit-aware versions of the declared family functions and snap, so mathjs can evaluate the same
+ * formulas the fast path compiles: every declared argument, optional ones included.
+ */
 function referenceFunctions(): Record<string, unknown> {
-	const t = (name: string, sig: string, fn: (...a: Quantity[]) => unknown) =>
-		math.typed(name, { [sig]: fn });
-	return {
-		patch_width: t('patch_width', 'any, any', (f, er) => metres(fam.patchWidth(si(f), si(er)))),
-		patch_eeff: t('patch_eeff', 'any, any, any', (er, h, w) => fam.patchEeff(si(er), si(h), si(w))),
-		patch_dl: t('patch_dl', 'any, any, any', (h, w, ee) =>
-			metres(fam.patchDeltaL(si(h), si(w), si(ee)))
-		),
-		patch_length: t('patch_length', 'any, any, any', (f, er, h) =>
-			metres(fam.patchLength(si(f), si(er), si(h)))
-		),
-		te11_cutoff: t('te11_cutoff', 'any', (d) => hertz(fam.te11Cutoff(si(d)))),
-		tm01_cutoff: t('tm01_cutoff', 'any', (d) => hertz(fam.tm01Cutoff(si(d)))),
-		guide_wavelength: t('guide_wavelength', 'any, any', (f, d) =>
-			metres(fam.guideWavelength(si(f), si(d)))
-		),
-		vf_from_er: t('vf_from_er', 'any', (er) => fam.vfFromEr(si(er))),
-		lambda_in: t('lambda_in', 'any, any', (f, vf) => metres(fam.lambdaIn(si(f), si(vf)))),
-		vswr_from_rl: t('vswr_from_rl', 'any', (rl) => fam.vswrFromRl(si(rl))),
-		rl_from_vswr: t('rl_from_vswr', 'any', (v) => fam.rlFromVswr(si(v))),
-		gamma_from_vswr: t('gamma_from_vswr', 'any', (v) => fam.gammaFromVswr(si(v))),
-		mismatch_loss: t('mismatch_loss', 'any', (v) => fam.mismatchLoss(si(v))),
-		snap: math.typed('snap', {
-			'Unit, string': (x: Unit, id: string) => {
-				if (!isCatalogueId(id)) throw new Error(`unknown catalogue ${id}`);
-				return metres(snapValue(x.value as number, id));
-			}
-		})
+	const wrap: Record<Kind, (v: number) => Quantity> = {
+		length: metres,
+		frequency: hertz,
+		number: (v) => v
 	};
+	const out: Record<string, unknown> = {};
+	for (const d of DECLARATIONS) {
+		const required = d.args.filter((a) => a.default === undefined).length;
+		const signatures: Record<string, (...a: Quantity[]) => unknown> = {};
+		for (let n = required; n <= d.args.length; n++) {
+			signatures[Array(n).fill('any').join(', ')] = (...xs: Quantity[]) =>
+				wrap[d.result](d.impl(...xs.map(si)));
+		}
+		out[d.name] = math.typed(d.name, signatures);
+	}
+	out.snap = math.typed('snap', {
+		'Unit, string': (x: Unit, id: string) => {
+			if (!isCatalogueId(id)) throw new Error(`unknown catalogue ${id}`);
+			return metres(snapValue(x.value as number, id));
+		}
+	});
+	return out;
 }
 
 math.import(referenceFunctions(), {});
