@@ -57,6 +57,65 @@ export default ts.config(
 			'import-x/no-cycle': ['error', { ignoreExternal: true }]
 		}
 	},
+	// Which may import which (DEVELOPERS.md, "Map of the house").
+	{
+		files: ['src/**/*.ts', 'src/**/*.svelte'],
+		ignores: ['src/**/*.test.ts', 'src/lib/testing/**'],
+		rules: {
+			'no-restricted-imports': [
+				'error',
+				{
+					patterns: [
+						{
+							group: ['$lib/testing/*', '**/testing/*'],
+							message: 'Test helpers stay out of production code.'
+						}
+					]
+				}
+			]
+		}
+	},
+	{
+		files: ['src/lib/rf/**/*.ts'],
+		ignores: ['src/lib/rf/**/*.test.ts'],
+		rules: {
+			'no-restricted-imports': [
+				'error',
+				{
+					patterns: [
+						{
+							group: [
+								'$app/*',
+								'@sveltejs/*',
+								'$lib/server/*',
+								'**/server/*',
+								'$lib/components/*',
+								'$env/*'
+							],
+							message: 'rf is plain TypeScript: no framework, server or UI imports.'
+						}
+					]
+				}
+			]
+		}
+	},
+	{
+		files: ['src/routes/**/*.ts', 'src/routes/**/*.svelte'],
+		rules: {
+			'no-restricted-imports': [
+				'error',
+				{
+					patterns: [
+						{
+							group: ['$lib/server/db', '$lib/server/db/*', 'drizzle-orm', 'drizzle-orm/*'],
+							message: 'Routes call server modules, never the database.'
+						},
+						{ group: ['$lib/testing/*'], message: 'Test helpers stay out of production code.' }
+					]
+				}
+			]
+		}
+	},
 	{
 		rules: {
 			'@typescript-eslint/no-unused-vars': [

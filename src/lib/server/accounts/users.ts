@@ -57,3 +57,15 @@ const displayNameById = db
 export function ownerName(userId: string): string {
 	return displayNameById.get({ id: userId })?.n ?? 'unknown';
 }
+
+/** What the account page shows of its owner. */
+export function accountOf(userId: string) {
+	const row = db.select().from(users).where(eq(users.id, userId)).get()!;
+	return {
+		email: row.email,
+		displayName: row.displayName,
+		role: row.role,
+		emailVerified: row.emailVerifiedAt !== null,
+		createdAt: row.createdAt.toISOString()
+	};
+}

@@ -1,7 +1,5 @@
 import { fail } from '@sveltejs/kit';
-import { eq } from 'drizzle-orm';
-import { db } from '$lib/server/db';
-import { users } from '$lib/server/db/schema';
+import { accountOf } from '$lib/server/accounts/users';
 import { issueEmailToken } from '$lib/server/accounts/accounts';
 import { sendVerificationMail } from '$lib/server/accounts/account-mail';
 import { requireUser } from '$lib/server/http/guards';
@@ -13,15 +11,8 @@ import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = () => {
 	const user = requireUser();
-	const row = db.select().from(users).where(eq(users.id, user.id)).get()!;
 	return {
-		account: {
-			email: row.email,
-			displayName: row.displayName,
-			role: row.role,
-			emailVerified: row.emailVerifiedAt !== null,
-			createdAt: row.createdAt.toISOString()
-		},
+		account: accountOf(user.id),
 		notifications: notificationSettings(user.id)
 	};
 };

@@ -1,8 +1,6 @@
 import { json } from '@sveltejs/kit';
-import { eq } from 'drizzle-orm';
 import { apiError } from '$lib/server/http/api';
-import { db } from '$lib/server/db';
-import { users } from '$lib/server/db/schema';
+import { ownerName } from '$lib/server/accounts/users';
 import { getMeasurement, measurementSeries } from '$lib/server/measurements/measurements';
 import { canRead, getRevisionById } from '$lib/server/designs/lookups';
 import { isLimited } from '$lib/server/http/rate-limit';
@@ -14,10 +12,7 @@ export const GET: RequestHandler = async (event) => {
 	const m = getMeasurement(event.params.id);
 	const r = m ? getRevisionById(m.revisionId) : null;
 	if (!m || !r || !canRead(event.locals.user, r)) return apiError(404, 'No such measurement.');
-	const uploader =
-		db.select({ n: users.displayName }).from(users).where(eq(users.id, m.uploaderId)).get()?.n ??
-		'unknown';
-	return json(measurementSeries(m, uploader), {
+	return json(measurementSeries(m, ownerName(m.uploaderId)), {
 		headers: { 'cache-control': r.state === 'draft' ? 'private, no-store' : 'public, max-age=300' }
 	});
 };
