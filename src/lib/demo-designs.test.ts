@@ -9,7 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { parseDesignFile, writeDesignFile, type DesignFile } from './design-file';
 import { C } from './rf/units/constants';
 import { P01, P11_PRIME, patchWidth } from './rf/formulas/families';
-import { toTableDefinition } from './rf/tables/revision-table';
+import { toTableDefinition } from './server/designs/revision-table';
 import { computeTable, type TableResult } from './rf/tables/table';
 
 const DIR = fileURLToPath(new URL('../../content/designs/', import.meta.url));

@@ -3,7 +3,7 @@
  * The design page, the build sheet, the CSV export and the dimensions API all read it here; the
  * page shows `notice` and carries on, the API refuses the first problem.
  */
-import { bandById } from '../catalogues/bands';
+import { bandById } from './bands';
 import { parseFrequency, parseFrequencyParam } from './frequency';
 import { UNITS, type Units } from './length';
 

@@ -1,5 +1,5 @@
 import { parseFrequency } from '$lib/rf/units/frequency';
-import { bandById } from '$lib/rf/catalogues/bands';
+import { bandById } from '$lib/rf/units/bands';
 import { FAMILY_VALUES, POLARIZATION_VALUES } from '$lib/schemas/design';
 import type { DesignQuery } from './search';
 

@@ -8,7 +8,7 @@ import {
 } from '$lib/rf/tables/table';
 import type { RevisionContent } from '$lib/schemas/design';
 import { DomainError } from '../http/errors';
-import { toTableDefinition, unknownCatalogues } from '$lib/rf/tables/revision-table';
+import { toTableDefinition, unknownCatalogues } from '$lib/server/designs/revision-table';
 import type { Revision } from '../db/schema';
 import type { ViewState } from '$lib/rf/units/view-state';
 import { contentOf } from './content';

@@ -17,7 +17,7 @@ import {
 	type PolicyState
 } from '$lib/server/reviews/policy';
 import { reviewSchema, type VerdictValue } from '$lib/schemas/review';
-import { bandById } from '$lib/rf/catalogues/bands';
+import { bandById } from '$lib/rf/units/bands';
 import { DomainError } from '../http/errors';
 import { audit } from '../moderation/audit';
 import { newId } from '../accounts/accounts';

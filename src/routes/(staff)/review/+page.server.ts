@@ -1,5 +1,5 @@
 import { FAMILY_VALUES } from '$lib/schemas/design';
-import { BANDS, bandById } from '$lib/rf/catalogues/bands';
+import { BANDS, bandById } from '$lib/rf/units/bands';
 import { requireRole } from '$lib/server/http/guards';
 import { listQueue } from '$lib/server/reviews/reviews';
 import type { PageServerLoad } from './$types';

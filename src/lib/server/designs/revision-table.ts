@@ -1,7 +1,7 @@
 /** Maps a stored revision's content to the dimension engine's table definition. */
-import type { RevisionContent } from '../../schemas/design';
-import { isCatalogueId } from '../catalogues/stock';
-import type { TableDefinition } from './types';
+import type { RevisionContent } from '$lib/schemas/design';
+import { isCatalogueId } from '$lib/rf/catalogues/stock';
+import type { TableDefinition } from '$lib/rf/tables/types';
 
 export function toTableDefinition(
 	content: Pick<RevisionContent, 'parameters' | 'rows'>
