@@ -90,9 +90,11 @@ export default ts.config(
 								'$lib/server/*',
 								'**/server/*',
 								'$lib/components/*',
-								'$env/*'
+								'$env/*',
+								'$lib/schemas/*',
+								'**/schemas/*'
 							],
-							message: 'rf is plain TypeScript: no framework, server or UI imports.'
+							message: 'rf is plain TypeScript: no framework, server, UI or schema imports.'
 						}
 					]
 				}
