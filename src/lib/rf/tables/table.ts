@@ -54,7 +54,7 @@ function show(si: number, dims: Dims, units: Units): Shown {
 	}
 	if (sameDims(dims, ANGLE))
 		return { value: si / DEG, unit: 'deg', display: `${(si / DEG).toFixed(2)}°` };
-	if (sameDims(dims, FREQUENCY)) return { value: si, unit: 'Hz', display: formatFrequency(si) };
+	if (sameDims(dims, FREQUENCY)) return { value: si, unit: 'Hz', display: formatFrequency(si, 6) };
 	if (isDimless(dims)) return { value: si, unit: '', display: NUMBER(si) };
 	const unit = siUnit(dims);
 	return { value: si, unit, display: `${NUMBER(si)} ${unit}` };
@@ -87,7 +87,7 @@ function ratioWarning(
 	const ratio = si / env[r.slot];
 	if (ratio >= r.min && ratio <= r.max) return undefined;
 	return (
-		`${key} / ${r.of} = ${NUMBER(ratio)} at ${formatFrequency(f)} is outside the range ${r.min} to ${r.max} ` +
+		`${key} / ${r.of} = ${NUMBER(ratio)} at ${formatFrequency(f, 6)} is outside the range ${r.min} to ${r.max} ` +
 		'the design was measured over; this dimension may no longer be right.'
 	);
 }
@@ -164,7 +164,7 @@ function rowResult(st: EvalState, row: CompiledRow): RowResult {
 		throw e;
 	}
 	if (!Number.isFinite(v)) {
-		const message = `the result is not a finite number at ${formatFrequency(f)} (a division by zero, or the root of a negative value?)`;
+		const message = `the result is not a finite number at ${formatFrequency(f, 6)} (a division by zero, or the root of a negative value?)`;
 		return rowError(st, row, { message });
 	}
 	const warnings: string[] = [];
@@ -201,7 +201,7 @@ function rowResult(st: EvalState, row: CompiledRow): RowResult {
 		out.sensitivity = s;
 		if (band && (f < band[0] || f > band[1])) {
 			warnings.push(
-				`the target frequency ${formatFrequency(f)} is outside the band, so no tolerance keeps the resonance inside it`
+				`the target frequency ${formatFrequency(f, 6)} is outside the band, so no tolerance keeps the resonance inside it`
 			);
 		} else if (
 			s.tolerance_mm !== undefined &&

@@ -93,9 +93,10 @@ export function parseFrequency(text: string): FrequencyParse {
 /** The largest unit not above |hz| (Hz for anything below 1 kHz), up to `largest`. */
 export function hzUnitFor(hz: number, largest: HzUnit = 'THz'): { unit: HzUnit; divisor: number } {
 	const m = Math.abs(hz);
-	const from = HZ_PREFIXES.findIndex((p) => p.unit === largest);
-	const p = HZ_PREFIXES.slice(from).find((x) => m >= 10 ** x.exponent) ?? HZ_PREFIXES[4];
-	return { unit: p.unit, divisor: 10 ** p.exponent };
+	let i = HZ_PREFIXES.findIndex((p) => p.unit === largest);
+	while (i < HZ_PREFIXES.length - 1 && m < HZ_PER_UNIT[HZ_PREFIXES[i].unit]) i++;
+	const unit = HZ_PREFIXES[i].unit;
+	return { unit, divisor: HZ_PER_UNIT[unit] };
 }
 
 /** "5.8 GHz", "433.92 MHz", "144 MHz": up to `significant` digits, trailing zeros dropped. */
