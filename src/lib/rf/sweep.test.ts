@@ -133,9 +133,11 @@ describe('analyzeSweep result shape', () => {
 				'rl_at_design_db',
 				'claim',
 				'phase_known',
+				'warnings',
 				'series'
 			].sort()
 		);
+		expect(r.warnings).toEqual([]);
 		expect(Object.keys(r.claim!).sort()).toEqual([
 			'miss_hi_hz',
 			'miss_lo_hz',

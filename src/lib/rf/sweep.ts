@@ -1,10 +1,15 @@
 import { parseCsvSweep } from './csv-sweep';
 import { MAX_SWEEP_POINTS, parseTouchstone } from './touchstone';
+import type { SweepWarning } from './sweep-warnings';
 
 export { MAX_SWEEP_POINTS };
 export { analyzeSweep, type AnalyzeOptions, type AnalyzeResult } from './claim-check';
+export type { SweepWarning, SweepWarningCode } from './sweep-warnings';
 
-/** A measured or synthetic 1-port sweep. re/im hold Γ = S11 referred to z0. */
+/**
+ * A measured or synthetic 1-port sweep. re/im hold Γ referred to z0: S11, or the S-parameter a
+ * 2-port file was read for, or Γ converted from impedance data.
+ */
 export interface Sweep {
 	source: 'touchstone' | 'csv';
 	z0: number;
@@ -15,6 +20,10 @@ export interface Sweep {
 	/** false when the data held only a magnitude (VSWR, return loss, |S11|): re = |Γ|, im = 0, no Smith chart. */
 	phase_known: boolean;
 	version?: 1 | 2;
+	/** Ports of the file read (a 2-port gives one reflection parameter). */
+	ports?: 1 | 2;
+	/** What the reader changed or noticed: conversions, defaults, the parameter used. */
+	warnings?: SweepWarning[];
 }
 
 export type SweepErrorCode =
@@ -22,8 +31,9 @@ export type SweepErrorCode =
 	| 'binary'
 	| 'no_data'
 	| 'too_many_points'
-	| 'two_port'
+	| 'too_many_ports'
 	| 'unsupported_parameter'
+	| 'no_such_parameter'
 	| 'bad_option'
 	| 'option_after_data'
 	| 'bad_keyword'
@@ -45,7 +55,7 @@ export interface SweepParseError {
 	message: string;
 	line?: number;
 	column?: number;
-	field?: 'format' | 'z0' | 'column' | 'quantity' | 'freq_unit';
+	field?: 'format' | 'z0' | 'column' | 'quantity' | 'freq_unit' | 'parameter';
 	choices?: string[];
 }
 
@@ -56,8 +66,12 @@ export type FrequencyUnit = 'Hz' | 'kHz' | 'MHz' | 'GHz';
 /** What a single CSV value column holds. */
 export type CsvQuantity = 'vswr' | 'rl_db' | 's11_db' | 's11_mag';
 
+/** The reflection parameter read from a 2-port file: port 1 (S11) or port 2 (S22). */
+export type ReflectionParameter = 's11' | 's22';
+
 export const FREQUENCY_UNITS: readonly FrequencyUnit[] = ['Hz', 'kHz', 'MHz', 'GHz'];
 export const CSV_QUANTITIES: readonly CsvQuantity[] = ['vswr', 'rl_db', 's11_db', 's11_mag'];
+export const REFLECTION_PARAMETERS: readonly ReflectionParameter[] = ['s11', 's22'];
 
 export interface ParseSweepOptions {
 	format?: SweepFormat;
@@ -69,6 +83,8 @@ export interface ParseSweepOptions {
 	quantity?: CsvQuantity;
 	/** CSV: frequency unit, when the frequency header carries none. */
 	freq_unit?: FrequencyUnit;
+	/** 2-port Touchstone: which reflection to read; a 1-port file or a CSV has S11 only. */
+	parameter?: ReflectionParameter;
 }
 
 // NUL and other C0 controls (tab, LF, VT, FF, CR allowed) or U+FFFD left by decoding non-UTF-8 bytes.
@@ -84,6 +100,10 @@ export function parseSweep(text: string, options: ParseSweepOptions = {}): Sweep
 	const z0 = options.z0;
 	if (z0 !== undefined && !(Number.isFinite(z0) && z0 > 0 && z0 <= 10000)) {
 		return bad('bad_argument', 'z0 must be a number above 0 and at most 10000 ohms', 'z0');
+	}
+	const parameter = options.parameter ?? 's11';
+	if (parameter !== 's11' && parameter !== 's22') {
+		return bad('bad_argument', 'parameter must be s11 or s22', 'parameter');
 	}
 	const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
 	if (body.trim() === '') return bad('empty', 'the file is empty');
@@ -103,7 +123,17 @@ export function parseSweep(text: string, options: ParseSweepOptions = {}): Sweep
 		};
 	}
 	const kind = format === 'auto' ? sniffFormat(body) : format;
-	return kind === 'touchstone' ? parseTouchstone(body, { z0 }) : parseCsvSweep(body, options);
+	const r =
+		kind === 'touchstone' ? parseTouchstone(body, { z0, parameter }) : parseCsvSweep(body, options);
+	if (r.ok && parameter === 's22' && r.sweep.ports !== 2) {
+		const what = kind === 'csv' ? 'a CSV sweep holds' : 'this is a 1-port file: it holds';
+		return bad(
+			'no_such_parameter',
+			`S22 was asked for, but ${what} one reflection (S11) only: choose S11`,
+			'parameter'
+		);
+	}
+	return r;
 }
 
 const OPTION_LIKE = /^#\s*((hz|khz|mhz|ghz|[syzhg]|ma|db|ri|r|[\d.e+-]+)(\s+|$))*$/i;
@@ -146,6 +176,7 @@ export interface AnalyzeQuery {
 	column?: string;
 	quantity?: CsvQuantity;
 	freq_unit?: FrequencyUnit;
+	parameter?: ReflectionParameter;
 }
 
 export type AnalyzeQueryField = keyof AnalyzeQuery;
@@ -163,7 +194,8 @@ const QUERY_FIELDS: readonly AnalyzeQueryField[] = [
 	'vswr_max',
 	'column',
 	'quantity',
-	'freq_unit'
+	'freq_unit',
+	'parameter'
 ];
 
 /** Validates the query of a sweep-analysis request; each failure names its field. */
@@ -231,6 +263,16 @@ export function parseAnalyzeQuery(params: URLSearchParams): AnalyzeQueryResult {
 		const u = FREQUENCY_UNITS.find((x) => x.toLowerCase() === unit.toLowerCase());
 		if (!u) return fail('freq_unit', `freq_unit must be one of ${FREQUENCY_UNITS.join(', ')}`);
 		value.freq_unit = u;
+	}
+	const parameter = params.get('parameter');
+	if (parameter !== null) {
+		const p = REFLECTION_PARAMETERS.find((x) => x === parameter.trim().toLowerCase());
+		if (!p)
+			return fail(
+				'parameter',
+				'parameter must be s11 or s22 (the reflection read from a 2-port file)'
+			);
+		value.parameter = p;
 	}
 	return { ok: true, value };
 }

@@ -10,7 +10,7 @@ import type { Revision } from './db/schema';
 
 /** Text fields a failed upload sends back to refill the form (never the file). */
 const KEEP =
-	/^(instrument|reference_plane|measured_on|notes|format|z0|column|quantity|freq_unit|target_frequency|deviations|materials|kind|caption)$/;
+	/^(instrument|reference_plane|measured_on|notes|format|z0|column|quantity|freq_unit|parameter|target_frequency|deviations|materials|kind|caption)$/;
 
 export async function uploadAction(
 	event: RequestEvent<{ slug: string; n: string }>,
