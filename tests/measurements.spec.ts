@@ -211,6 +211,11 @@ test.describe('files from real instruments', () => {
 		await page.getByRole('button', { name: 'Upload measurement' }).click();
 		await expect(page).toHaveURL(new RegExp(`${base}\\?added=`));
 		await expect(page.getByTestId('sweep-added')).toContainText('read the note on the file below');
+		const id = new URL(page.url()).searchParams.get('added');
+		const stored = await (await page.request.get(`/api/v1/measurements/${id}`)).json();
+		expect(stored.warnings).toEqual([
+			expect.objectContaining({ code: 'above_unity', count: expect.any(Number) })
+		]);
 		const first = page.getByTestId('measurement').first();
 		await expect(first.getByTestId('claim-check')).toHaveText('Meets the claim');
 		await expect(first.getByTestId('sweep-warnings')).toContainText(

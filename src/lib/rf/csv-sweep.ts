@@ -412,7 +412,7 @@ function readRows(lines: string[], from: number, L: Layout): SweepParseResult {
 		n++;
 	}
 	if (n === 0) return failAt('no_data', 'the file has no data rows');
-	const refused = notPassiveMessage(far, n, csvHint(rd, raw, n));
+	const refused = notPassiveMessage(far, n, () => csvHint(rd, raw, n));
 	if (refused) return failAt('not_passive', refused, far.line, far.column);
 	const used =
 		rd.kind === 'scalar'

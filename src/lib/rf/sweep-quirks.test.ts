@@ -133,6 +133,17 @@ describe('one wild outlier', () => {
 		expect(a.series.vswr[a.series.f_hz.indexOf(440e6)]).toBeNull();
 	});
 
+	it('calibration noise and a glitch in one file: the warning words both', () => {
+		const both = g.map((x) => (x.abs() > 0.963 ? x.mul(1.04) : x));
+		const noise = both.filter((x, i) => i !== k && x.abs() > 1).length;
+		expect(noise).toBeGreaterThan(0);
+		const a = analyzeSweep(load(['# MHz S MA R 50', ...maLines(f, both)].join('\n')));
+		expect(a.warnings[0].count).toBe(noise + 1);
+		expect(a.warnings[0].message).toContain(
+			`${noise} of them are within 1 % of 1: calibration noise, as a calibrated instrument reads near total reflection (an open, a short, an antenna far out of its band). 1 is further over: usually a glitch or a sweep taken without calibration.`
+		);
+	});
+
 	it('most points far above 1 is refused: not a passive one-port, with the likely causes', () => {
 		const gain = ['# MHz S DB R 50', ...Array.from(f, (hz) => `${hz / 1e6} 15.2 ${hz / 1e7}`)];
 		const r = parseSweep(gain.join('\n'));
@@ -319,7 +330,7 @@ describe('two-port files', () => {
 		expectOnlyNote(
 			a,
 			'two_port_parameter',
-			'2-port file: S11, the reflection at port 1 with port 2 terminated in its reference impedance, was used (50 Ω); S21, S12 and S22 were not. Choose S22 in the file options to read port 2 instead. The noise parameters after the network data were skipped.'
+			'2-port file: S11 was used: the reflection at port 1, referred to 50 Ω, with port 2 terminated in its reference impedance; S21, S12 and S22 were not. Choose S22 in the file options (parameter=s22 in the API) to read port 2 instead. The noise parameters after the network data were skipped.'
 		);
 		expectClosedForm(a, F0, 50, 1e5);
 	});
@@ -328,7 +339,9 @@ describe('two-port files', () => {
 		const s = load(v1, { parameter: 's22' });
 		expect(s.ports).toBe(2);
 		const a = analyzeSweep(s);
-		expect(a.warnings[0].message).toMatch(/^2-port file: S22, the reflection at port 2/);
+		expect(a.warnings[0].message).toMatch(
+			/^2-port file: S22 was used: the reflection at port 2, referred to 50 Ω/
+		);
 		expectClosedForm(a, 445e6, 50, 1e5);
 	});
 
@@ -353,7 +366,9 @@ describe('two-port files', () => {
 		expectClosedForm(a11, F0, 50, 1e5);
 		const a22 = analyzeSweep(load(text, { parameter: 's22' }));
 		expect(a22.z0).toBe(75);
-		expect(a22.warnings[0].message).toMatch(/S22, .* was used \(75 Ω\)/);
+		expect(a22.warnings[0].message).toMatch(
+			/S22 was used: the reflection at port 2, referred to 75 Ω/
+		);
 		expectClosedForm(a22, 445e6, 75, 1e5);
 	});
 

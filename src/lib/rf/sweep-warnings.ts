@@ -31,6 +31,9 @@ export const NOT_PASSIVE_MAGNITUDE = 1.05;
 export const NOT_PASSIVE_SHARE = 0.5;
 export const UNITY_SQ = (1 + PASSIVE_TOLERANCE) ** 2;
 export const FAR_SQ = NOT_PASSIVE_MAGNITUDE ** 2;
+/** Up to 1 % over 1 is worded as calibration noise; further over, as a glitch. */
+const NOISE_SQ = 1.01 ** 2;
+const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
 export function note(code: SweepWarningCode, message: string): SweepWarning {
 	return { code, message, count: null, max_excess: null, frequency_hz: null };
@@ -61,10 +64,15 @@ const CAUSES =
 
 /**
  * The refusal for data that cannot be a passive one-port, or null when it can.
- * `hint` is a sentence on the most likely cause in this file, or ''.
+ * `hintOf` gives a sentence on the most likely cause in this file, or ''.
  */
-export function notPassiveMessage(t: FarTally, points: number, hint: string): string | null {
+export function notPassiveMessage(
+	t: FarTally,
+	points: number,
+	hintOf: () => string
+): string | null {
 	if (!(t.count > points * NOT_PASSIVE_SHARE)) return null;
+	const hint = hintOf();
 	const largest = Math.sqrt(t.max_sq);
 	const size = Number.isFinite(largest) && largest < 1e6 ? largest.toPrecision(4) : 'far more';
 	return `not a passive one-port: |S11| is above ${NOT_PASSIVE_MAGNITUDE} at ${t.count} of ${points} points (largest ${size}), and no antenna or other passive load reflects more than it receives. ${hint ? hint + ' ' : ''}${CAUSES}`;
@@ -81,12 +89,14 @@ export function aboveUnity(sweep: Sweep): AboveUnity {
 	const { re, im, f_hz } = sweep;
 	const n = f_hz.length;
 	let count = 0;
+	let far = 0;
 	let worst = -1;
 	let worstSq = 0;
 	for (let i = 0; i < n; i++) {
 		const g2 = re[i] * re[i] + im[i] * im[i];
 		if (!(g2 > UNITY_SQ)) continue;
 		count++;
+		if (g2 > NOISE_SQ) far++;
 		if (g2 > worstSq) {
 			worstSq = g2;
 			worst = i;
@@ -105,10 +115,14 @@ export function aboveUnity(sweep: Sweep): AboveUnity {
 		count === 1
 			? `1 point reads |S11| above 1: ${largest.toFixed(4)} at ${at} (${pct}).`
 			: `${count} of ${n} points read |S11| above 1, the largest ${largest.toFixed(4)} at ${at} (${pct}).`;
+	const reflection = 'near total reflection (an open, a short, an antenna far out of its band)';
+	const glitch = 'usually a glitch or a sweep taken without calibration';
 	const why =
-		excess <= 0.01
-			? 'Near total reflection (an open, a short, an antenna far out of its band) a calibrated instrument reads slightly over 1: calibration noise.'
-			: 'A point this far over 1 is usually a glitch or a sweep taken without calibration.';
+		far === 0
+			? `${capital(reflection)} a calibrated instrument reads slightly over 1: calibration noise.`
+			: far === count
+				? `${far === 1 ? 'A point this far over 1 is' : 'Points this far over 1 are'} ${glitch}.`
+				: `${count - far} of them are within 1 % of 1: calibration noise, as a calibrated instrument reads ${reflection}. ${far === 1 ? '1 is' : `${far} are`} further over: ${glitch}.`;
 	const effect =
 		count === n
 			? 'No passive load reflects more than it receives, so VSWR is off the scale at every point and no VSWR figures could be derived.'

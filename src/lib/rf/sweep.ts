@@ -90,7 +90,7 @@ export interface ParseSweepOptions {
 // NUL and other C0 controls (tab, LF, VT, FF, CR allowed) or U+FFFD left by decoding non-UTF-8 bytes.
 const NON_TEXT = /[\u0000-\u0008\u000e-\u001f\ufffd]/;
 
-/** Parses a Touchstone 1-port or CSV sweep. Never throws: every failure is a located SweepParseError. */
+/** Parses a Touchstone (1-port, or one reflection of a 2-port) or CSV sweep. Never throws: every failure is a located SweepParseError. */
 export function parseSweep(text: string, options: ParseSweepOptions = {}): SweepParseResult {
 	if (typeof text !== 'string') return bad('bad_argument', 'the sweep must be given as text');
 	const format = options.format ?? 'auto';

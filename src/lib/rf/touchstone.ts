@@ -10,14 +10,8 @@ import {
 	type Failure,
 	type OptionLine
 } from './touchstone-options';
-import {
-	newTally,
-	note,
-	notPassiveMessage,
-	tally,
-	type FarTally,
-	type SweepWarning
-} from './sweep-warnings';
+import { onKeyword, onReference, setPorts, type State } from './touchstone-keywords';
+import { newTally, note, notPassiveMessage, tally, type SweepWarning } from './sweep-warnings';
 
 export { decimalNumber, failAt };
 
@@ -46,51 +40,13 @@ const TEXT = {
 		'this line has 7 numbers, as in a 3-port file: only 1-port and 2-port files are read; export S11 as a 1-port file',
 	continued:
 		'a line of 8 numbers without a frequency continues the previous data, as in files with 4 or more ports: only 1-port and 2-port files are read; export S11 as a 1-port file',
-	twoPortZ:
-		'Z-parameters of a 2-port file are not read (S11 needs the whole matrix): export the file as S-parameters',
 	optionAfterData: 'option line after data: the option line must precede the data lines',
 	tooMany: `more than ${MAX_SWEEP_POINTS} points: the limit is 200 000 frequencies per sweep`,
 	duplicate: 'duplicate frequency: frequencies must increase strictly',
 	decreasing: 'frequency lower than the line before: frequencies must increase strictly',
 	infinite:
-		'this pair gives an infinite reflection, which no passive load has: check the format letters on the option line',
-	version: '[Version] must be the first line of a Touchstone 2.0 file'
+		'this pair gives an infinite reflection, which no passive load has: check the format letters on the option line'
 };
-
-interface State {
-	opt: OptionLine | null;
-	version: 1 | 2;
-	first: boolean;
-	n: number;
-	prev: number;
-	/** 0 until known: from [Number of Ports] (v2) or the first data line (v1). */
-	ports: number;
-	/** Numbers per frequency: 3 for a 1-port, 9 for a 2-port (7 for a v2 Lower or Upper matrix). */
-	record: number;
-	matrix: 'full' | 'lower' | 'upper';
-	nfreq: number;
-	nfreqLine: number;
-	refs: number[];
-	refsPending: boolean;
-	refsLine: number;
-	inNetworkData: boolean;
-	inInformation: boolean;
-	inNoise: boolean;
-	noiseSkipped: boolean;
-	ended: boolean;
-	/** v2: numbers of a frequency that continues on the next line, and where it started. */
-	carry: string[];
-	carryLine: number;
-	f: Float64Array;
-	re: Float64Array;
-	im: Float64Array;
-	/** The pair as written, for a hint when the data cannot be passive. */
-	ra: Float64Array;
-	rb: Float64Array;
-	far: FarTally;
-	comments: string[];
-	parameter: ReflectionParameter;
-}
 
 /** Reads a Touchstone 1-port or 2-port file; z0, when given and different from the file's R, renormalizes. */
 export function parseTouchstone(
@@ -170,7 +126,9 @@ function finish(st: State, lineCount: number, z0?: number): SweepParseResult | F
 	const opt = st.opt ?? DEFAULT_OPTIONS;
 	const port = st.ports === 2 && st.parameter === 's22' ? 2 : 1;
 	const r = st.refs[port - 1] ?? st.refs[0] ?? opt.r;
-	const refused = notPassiveMessage(st.far, n, formatHint(opt, st.ra, st.rb, n, zScale(st, r)));
+	const refused = notPassiveMessage(st.far, n, () =>
+		formatHint(opt, st.ra, st.rb, n, zScale(st, r))
+	);
 	if (refused) return failAt('not_passive', refused, st.far.line, st.far.column);
 	const sweep: Sweep = {
 		source: 'touchstone',
@@ -199,7 +157,7 @@ function readerNotes(st: State, opt: OptionLine, r: number): SweepWarning[] {
 		out.push(
 			note(
 				'option_r_without_value',
-				`Line ${opt.line}: the option line '${opt.text}' gives R without a value; it was read as R 50, the Touchstone default of 50 Ω. Check that the instrument measured against 50 Ω.`
+				`Line ${opt.line}: the option line '${opt.text.slice(0, 80)}' gives R without a value; it was read as R 50, the Touchstone default of 50 Ω. Check that the instrument measured against 50 Ω.`
 			)
 		);
 	}
@@ -218,8 +176,8 @@ function readerNotes(st: State, opt: OptionLine, r: number): SweepWarning[] {
 	if (st.ports === 2) {
 		const used =
 			st.parameter === 's22'
-				? `S22, the reflection at port 2 with port 1 terminated in its reference impedance, was used (${r} Ω); S11, S21 and S12 were not.`
-				: `S11, the reflection at port 1 with port 2 terminated in its reference impedance, was used (${r} Ω); S21, S12 and S22 were not. Choose S22 in the file options to read port 2 instead.`;
+				? `S22 was used: the reflection at port 2, referred to ${r} Ω, with port 1 terminated in its reference impedance; S11, S21 and S12 were not.`
+				: `S11 was used: the reflection at port 1, referred to ${r} Ω, with port 2 terminated in its reference impedance; S21, S12 and S22 were not. Choose S22 in the file options (parameter=s22 in the API) to read port 2 instead.`;
 		const noise = st.noiseSkipped
 			? ' The noise parameters after the network data were skipped.'
 			: '';
@@ -238,169 +196,22 @@ function onOption(st: State, line: string, p: number, lineNo: number): Failure |
 	return null;
 }
 
-function setPorts(st: State, ports: number, lineNo: number, column: number): Failure | null {
-	if ((st.opt ?? DEFAULT_OPTIONS).param === 'z' && ports === 2) {
-		return failAt('unsupported_parameter', TEXT.twoPortZ, lineNo, column);
-	}
-	st.ports = ports;
-	st.record = ports === 1 ? 3 : st.matrix === 'full' ? 9 : 7;
-	return null;
-}
-
-function onKeyword(st: State, line: string, p: number, lineNo: number): Failure | null {
-	const close = line.indexOf(']', p);
-	if (close < 0) return failAt('bad_keyword', 'keyword without a closing ]', lineNo, p + 1);
-	const key = line
-		.slice(p + 1, close)
-		.trim()
-		.toLowerCase()
-		.replace(/\s+/g, ' ');
-	const rest = line.slice(close + 1).trim();
-	const at = line.length - line.slice(close + 1).trimStart().length + 1; // column of rest
-	const wasFirst = st.first;
-	st.first = false;
-	if (st.inInformation) {
-		if (key === 'end information') st.inInformation = false;
-		return null;
-	}
-	if (key === 'version') {
-		if (!wasFirst) return failAt('bad_keyword', TEXT.version, lineNo, p + 1);
-		if (!/^2(\.\d+)?$/.test(rest)) {
-			return failAt(
-				'bad_keyword',
-				`unsupported Touchstone version '${rest}' (expected 2.0)`,
-				lineNo,
-				at
-			);
-		}
-		st.version = 2;
-		return null;
-	}
-	if (st.version === 1) {
-		const msg = `keyword [${key}] belongs to Touchstone 2.0 files, which start with [Version] 2.0`;
-		return failAt('bad_keyword', msg, lineNo, p + 1);
-	}
-	if (st.refsPending) return referenceShort(st);
-	if (st.carry.length > 0) return recordShort(st);
-	if (st.n > 0 && key !== 'end' && key !== 'noise data' && key !== 'number of noise frequencies') {
-		return failAt(
-			'bad_keyword',
-			`keyword [${key}] after the network data; expected [End]`,
-			lineNo,
-			p + 1
-		);
-	}
-	const int = /^\d+$/.test(rest) ? Number(rest) : NaN;
-	switch (key) {
-		case 'number of ports':
-			if (!(int >= 1))
-				return failAt('bad_keyword', '[Number of Ports] needs a whole number', lineNo, at);
-			if (int > 2) {
-				const msg = `this file has ${int} ports: only 1-port and 2-port files are read; export S11 as a 1-port file`;
-				return failAt('too_many_ports', msg, lineNo, at);
-			}
-			return setPorts(st, int, lineNo, at);
-		case 'number of frequencies':
-			if (!(int >= 1)) {
-				return failAt(
-					'bad_keyword',
-					'[Number of Frequencies] needs a whole number above 0',
-					lineNo,
-					at
-				);
-			}
-			st.nfreq = int;
-			st.nfreqLine = lineNo;
-			return null;
-		case 'reference':
-			st.refsPending = true;
-			st.refsLine = lineNo;
-			return rest === '' ? null : onReference(st, rest, lineNo, at);
-		case 'matrix format': {
-			const m = rest.toLowerCase();
-			if (m !== 'full' && m !== 'lower' && m !== 'upper') {
-				return failAt('bad_keyword', '[Matrix Format] is Full, Lower or Upper', lineNo, at);
-			}
-			st.matrix = m;
-			if (st.ports) st.record = st.ports === 1 ? 3 : m === 'full' ? 9 : 7;
-			return null;
-		}
-		case 'two-port data order':
-		case 'number of noise frequencies':
-			return null;
-		case 'begin information':
-			st.inInformation = true;
-			return null;
-		case 'network data':
-			if (st.ports === 0) {
-				return failAt(
-					'missing_keyword',
-					'[Number of Ports] must come before [Network Data]',
-					lineNo,
-					p + 1
-				);
-			}
-			if (st.nfreq < 0) {
-				return failAt(
-					'missing_keyword',
-					'[Number of Frequencies] must come before [Network Data]',
-					lineNo,
-					p + 1
-				);
-			}
-			st.inNetworkData = true;
-			return null;
-		case 'noise data':
-			if (st.ports !== 2) {
-				return failAt('bad_keyword', '[Noise Data] belongs to 2-port files', lineNo, p + 1);
-			}
-			st.inNoise = true;
-			st.noiseSkipped = true;
-			return null;
-		case 'end':
-			st.ended = true;
-			return null;
-		default:
-			return failAt('bad_keyword', `unknown keyword [${key}]`, lineNo, p + 1);
-	}
-}
-
-/** [Reference] values, one per port, on its own line or the lines after it. */
-function onReference(st: State, text: string, lineNo: number, column: number): Failure | null {
-	for (const tok of text.split(/\s+/)) {
-		const r = decimalNumber(tok);
-		if (!(r > 0)) return referenceShort(st, lineNo, column);
-		st.refs.push(r);
-	}
-	if (st.refs.length >= Math.max(1, st.ports)) {
-		st.refsPending = false;
-		if (st.refs.length > Math.max(1, st.ports)) return referenceShort(st, lineNo, column);
-	}
-	return null;
-}
-
-function referenceShort(st: State, line = st.refsLine, column?: number): Failure {
-	const ports = Math.max(1, st.ports);
-	const msg = `[Reference] takes one positive impedance per port (${ports} for this file)`;
-	return failAt('bad_keyword', msg, line, column);
-}
-
-function recordShort(st: State): Failure {
-	const msg = `the data of this frequency stop after ${st.carry.length} of ${st.record} numbers`;
-	return failAt('field_count', msg, st.carryLine, 1);
-}
-
-/** Start and end offsets of the whitespace-separated tokens of a line, from p. */
-function tokens(line: string, p: number): number[] {
-	const out: number[] = [];
+/** Start and end offsets of a data line's first 9 tokens (TOK) and the count of all. */
+const TOK = new Int32Array(18);
+function tokens(line: string, p: number): number {
 	let q = p;
+	let count = 0;
 	while (q < line.length) {
 		const s = q;
 		while (q < line.length && line.charCodeAt(q) > 32) q++;
-		out.push(s, q);
+		if (count < 9) {
+			TOK[2 * count] = s;
+			TOK[2 * count + 1] = q;
+		}
+		count++;
 		while (q < line.length && line.charCodeAt(q) <= 32) q++;
 	}
-	return out;
+	return count;
 }
 
 function onData(st: State, line: string, p: number, lineNo: number): Failure | null {
@@ -410,9 +221,8 @@ function onData(st: State, line: string, p: number, lineNo: number): Failure | n
 	if (st.version === 2 && !st.inNetworkData) {
 		return failAt('missing_keyword', 'data before [Network Data]', lineNo, p + 1);
 	}
-	const t = tokens(line, p);
-	const count = t.length / 2;
-	if (st.version === 2) return onDataV2(st, line, t, lineNo);
+	const count = tokens(line, p);
+	if (st.version === 2) return onDataV2(st, line, count, lineNo);
 	if (st.ports === 0) {
 		if (count === 7) return failAt('too_many_ports', TEXT.threePort, lineNo, p + 1);
 		if (count === 3 || count === 9) {
@@ -420,9 +230,9 @@ function onData(st: State, line: string, p: number, lineNo: number): Failure | n
 			if (e) return e;
 		}
 	}
-	if (count === st.record) return onRecord(st, line, t, lineNo);
+	if (count === st.record) return onRecord(st, line, count, lineNo, false);
 	if (st.ports === 2 && count === 8) return failAt('too_many_ports', TEXT.continued, lineNo, p + 1);
-	if (st.ports === 2 && count === 5 && decimalNumber(line.slice(t[0], t[1])) <= st.prev) {
+	if (st.ports === 2 && count === 5 && decimalNumber(line.slice(TOK[0], TOK[1])) <= st.prev) {
 		// Touchstone 1.x 2-port noise parameters: a 5-number block whose frequencies start again
 		st.noiseSkipped = true;
 		return null;
@@ -437,14 +247,16 @@ function onData(st: State, line: string, p: number, lineNo: number): Failure | n
 }
 
 /** Version 2: a frequency's numbers may continue on the following lines. */
-function onDataV2(st: State, line: string, t: number[], lineNo: number): Failure | null {
-	if (st.carry.length === 0 && t.length / 2 === st.record) return onRecord(st, line, t, lineNo);
+function onDataV2(st: State, line: string, count: number, lineNo: number): Failure | null {
+	if (st.carry.length === 0 && count === st.record) {
+		return onRecord(st, line, count, lineNo, false);
+	}
 	if (st.carry.length === 0) st.carryLine = lineNo;
-	for (let k = 0; k < t.length; k += 2) st.carry.push(line.slice(t[k], t[k + 1]));
-	if (st.carry.length > st.record) {
-		const msg = `expected ${st.record} numbers for this frequency (the frequency and ${(st.record - 1) / 2} ${st.record === 3 ? 'pair' : 'pairs'}), found ${st.carry.length}`;
+	if (st.carry.length + count > st.record) {
+		const msg = `expected ${st.record} numbers for this frequency (the frequency and ${(st.record - 1) / 2} ${st.record === 3 ? 'pair' : 'pairs'}), found ${st.carry.length + count}`;
 		return failAt('field_count', msg, st.carryLine, 1);
 	}
+	for (let k = 0; k < count; k++) st.carry.push(line.slice(TOK[2 * k], TOK[2 * k + 1]));
 	if (st.carry.length < st.record) return null;
 	// the joined record, located at the line where it started
 	const joined = st.carry.join(' ');
@@ -455,51 +267,53 @@ function onDataV2(st: State, line: string, t: number[], lineNo: number): Failure
 const G = { re: 0, im: 0 };
 const NUMS = new Float64Array(9);
 
+/** One frequency's numbers, in TOK; `joined` when gathered from several lines (columns are then 1). */
 function onRecord(
 	st: State,
 	line: string,
-	t: number[],
+	count: number,
 	lineNo: number,
-	joined = false
+	joined: boolean
 ): Failure | null {
-	const col = (k: number) => (joined ? 1 : t[2 * k] + 1);
-	for (let k = 0; k < t.length; k += 2) {
-		const v = decimalNumber(line.slice(t[k], t[k + 1]));
+	for (let k = 0; k < count; k++) {
+		const s = TOK[2 * k];
+		const v = decimalNumber(line.slice(s, TOK[2 * k + 1]));
 		if (v !== v) {
-			const s = t[k];
 			return failAt(
 				'not_a_number',
-				`'${line.slice(s, Math.min(t[k + 1], s + 40))}' is not a number`,
+				`'${line.slice(s, Math.min(TOK[2 * k + 1], s + 40))}' is not a number`,
 				lineNo,
-				col(k / 2)
+				joined ? 1 : s + 1
 			);
 		}
-		NUMS[k / 2] = v;
+		NUMS[k] = v;
 	}
 	if (st.n >= MAX_SWEEP_POINTS) return failAt('too_many_points', TEXT.tooMany, lineNo, 1);
 	const o = st.opt ?? (st.opt = { ...DEFAULT_OPTIONS });
 	const fv = NUMS[0];
+	const fcol = joined ? 1 : TOK[0] + 1;
 	if (!(fv >= 0 && fv * o.mult <= MAX_FREQUENCY_HZ)) {
-		return failAt('bad_value', FREQUENCY_RANGE, lineNo, col(0));
+		return failAt('bad_value', FREQUENCY_RANGE, lineNo, fcol);
 	}
 	if (fv <= st.prev) {
 		return fv === st.prev
-			? failAt('duplicate_frequency', TEXT.duplicate, lineNo, col(0))
-			: failAt('not_increasing', TEXT.decreasing, lineNo, col(0));
+			? failAt('duplicate_frequency', TEXT.duplicate, lineNo, fcol)
+			: failAt('not_increasing', TEXT.decreasing, lineNo, fcol);
 	}
 	st.prev = fv;
 	// the pair's first number: S11 comes first; S22 last (in Full, Lower and Upper matrices alike)
 	const k = st.ports === 2 && st.parameter === 's22' ? st.record - 2 : 1;
 	const a = NUMS[k];
 	const b = NUMS[k + 1];
+	const acol = joined ? 1 : TOK[2 * k] + 1;
 	if (o.format === 'ma' && a < 0) {
-		return failAt('bad_value', 'magnitude cannot be negative', lineNo, col(k));
+		return failAt('bad_value', 'magnitude cannot be negative', lineNo, acol);
 	}
 	const r = k === 1 ? st.refs[0] : (st.refs[1] ?? st.refs[0]);
 	pairToGamma(o.format, o.param, a, b, st.version === 2 ? (r ?? o.r) : 1, G);
 	const g2 = G.re * G.re + G.im * G.im;
-	if (!Number.isFinite(g2)) return failAt('not_passive', TEXT.infinite, lineNo, col(k));
-	tally(st.far, g2, lineNo, col(k));
+	if (!Number.isFinite(g2)) return failAt('not_passive', TEXT.infinite, lineNo, acol);
+	tally(st.far, g2, lineNo, acol);
 	const n = st.n++;
 	st.f[n] = fv * o.mult;
 	st.re[n] = G.re;
