@@ -450,6 +450,10 @@ function readRows(lines: string[], from: number, L: Layout): SweepParseResult {
 
 type Refusal = { code: 'bad_value' | 'not_passive'; message: string };
 const negative = (): Refusal => ({ code: 'bad_value', message: 'magnitude cannot be negative' });
+const infinite = (): Refusal => ({
+	code: 'not_passive',
+	message: 'this value gives an infinite |S11|, which no passive load has'
+});
 
 /** Γ of one row, or why the row cannot be read. Values above |Γ| = 1 are kept (see sweep-warnings). */
 function gamma(rd: Reading, a: number, b: number, z0: number): [number, number] | Refusal {
@@ -467,7 +471,7 @@ function gamma(rd: Reading, a: number, b: number, z0: number): [number, number] 
 	if (rd.kind === 'polar') {
 		const mag = rd.db ? Math.pow(10, a / 20) : a;
 		if (mag < 0) return negative();
-		if (!Number.isFinite(mag)) return { code: 'not_passive', message: 'an infinite magnitude' };
+		if (!Number.isFinite(mag)) return infinite();
 		const th = rd.radians ? b : (b * Math.PI) / 180;
 		return [mag * Math.cos(th), mag * Math.sin(th)];
 	}
@@ -487,7 +491,7 @@ function gamma(rd: Reading, a: number, b: number, z0: number): [number, number] 
 			if (a < 0) return negative();
 			re = a;
 	}
-	if (!Number.isFinite(re)) return { code: 'not_passive', message: 'an infinite magnitude' };
+	if (!Number.isFinite(re)) return infinite();
 	return [re, 0];
 }
 
