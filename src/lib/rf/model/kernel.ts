@@ -34,7 +34,7 @@ export const PAIR_SHARED_END = 3;
 export const PAIR_SELF = 4;
 
 const FOUR_PI = 4 * Math.PI;
-const NEAR_OUTER = gaussLegendre(8);
+const NEAR_PANEL = gaussLegendre(8);
 const NEAR_INNER = gaussLegendre(4);
 const SELF_RULE = gaussLegendre(10);
 
@@ -122,6 +122,32 @@ function graded(ratio: number): Rule {
 }
 
 /**
+ * Outer rule along p for a near pair: Gauss panels split where q's end points project onto p,
+ * since the inner integral changes character there.
+ */
+function splitAtEnds(P: SegmentArrays, p: number, Q: SegmentArrays, q: number): Rule {
+	const cuts = [0, 1];
+	for (const s of [0, Q.len[q]]) {
+		const t =
+			((Q.sx[q] + s * Q.ux[q] - P.sx[p]) * P.ux[p] +
+				(Q.sy[q] + s * Q.uy[q] - P.sy[p]) * P.uy[p] +
+				(Q.sz[q] + s * Q.uz[q] - P.sz[p]) * P.uz[p]) /
+			P.len[p];
+		if (t > 0.02 && t < 0.98) cuts.push(t);
+	}
+	cuts.sort((x, y) => x - y);
+	const n = NEAR_PANEL.t.length;
+	const t = new Float64Array(n * (cuts.length - 1));
+	const w = new Float64Array(t.length);
+	for (let c = 0; c + 1 < cuts.length; c++)
+		for (let i = 0; i < n; i++) {
+			t[c * n + i] = cuts[c] + (cuts[c + 1] - cuts[c]) * NEAR_PANEL.t[i];
+			w[c * n + i] = (cuts[c + 1] - cuts[c]) * NEAR_PANEL.w[i];
+		}
+	return { t, w };
+}
+
+/**
  * Near pair: outer Gauss along p (graded towards its start or end when the pair shares that
  * node), inner integral along q with the static part in closed form.
  */
@@ -138,7 +164,7 @@ export function nearPair(
 	const lp = P.len[p];
 	const lq = Q.len[q];
 	const a = Math.sqrt(a2);
-	const outer = kind === PAIR_NEAR ? NEAR_OUTER : graded(a / lp);
+	const outer = kind === PAIR_NEAR ? splitAtEnds(P, p, Q, q) : graded(a / lp);
 	const flip = kind === PAIR_SHARED_END;
 	const qx = Q.sx[q],
 		qy = Q.sy[q],

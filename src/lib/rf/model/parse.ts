@@ -105,6 +105,9 @@ export const pathText = (path: (string | number)[]) =>
 	path.reduce<string>((s, k) => (typeof k === 'number' ? `${s}[${k}]` : s ? `${s}.${k}` : k), '');
 
 function describe(issue: z.core.$ZodIssue): string {
+	const last = issue.path[issue.path.length - 1];
+	if (typeof last === 'string' && FIELD_WORDS[last] && issue.code !== 'unrecognized_keys')
+		return 'must be a list [x, y, z] of three values';
 	switch (issue.code) {
 		case 'invalid_type':
 			return issue.expected === 'number'

@@ -40,7 +40,7 @@ export function gaussLegendre(n: number): Rule {
  * A composite rule on [0, 1] graded geometrically towards t = 0 (panels [4⁻ⁱ⁻¹, 4⁻ⁱ] down to
  * `smallest`, then [0, smallest]), for integrands with a logarithmic peak at t = 0.
  */
-export function gradedRule(smallest: number, perPanel = 4): Rule {
+export function gradedRule(smallest: number, perPanel = 6): Rule {
 	const base = gaussLegendre(perPanel);
 	const edges = [1];
 	while (edges[edges.length - 1] > smallest && edges.length < 40)
