@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { farField, radiatedPower } from './farfield';
-import { buildGeometry, type Geometry } from './geometry';
+import type { Geometry } from './geometry';
+import { C0, centreFedDipole, geometryOf, resonanceByBisection } from '$lib/testing/wire-models';
 import { impedanceMatrix, solve, solvePorts } from './solver';
 import type { WireModel } from './types';
 
@@ -10,40 +11,9 @@ import type { WireModel } from './types';
  * the code under test.
  */
 
-const C0 = 299_792_458; // SI Brochure 9th ed. [SI2019]
 const ETA = 376.730313668; // μ0·c, CODATA 2018 [CODATA2018]
-
-function built(model: WireModel, top_hz: number): Geometry {
-	const g = buildGeometry(model, top_hz);
-	if (!g.ok) throw new Error(g.error.message);
-	return g.value;
-}
-
-/** A centre-fed dipole along z, perfect conductor unless `sigma` is given. */
-function dipole(
-	length: number,
-	radius: number,
-	segments: number,
-	sigma: number | null = null
-): Geometry {
-	return built(
-		{
-			wires: [
-				{
-					kind: 'wire',
-					name: 'dipole',
-					from: [0, 0, -length / 2],
-					to: [0, 0, length / 2],
-					radius,
-					segments
-				}
-			],
-			feed: { wire: 'dipole', position: 0.5 },
-			conductivity_s_per_m: sigma
-		},
-		C0 / length
-	);
-}
+const built = geometryOf;
+const dipole = centreFedDipole;
 
 /** Simpson's rule with n (even) intervals — the test's own quadrature. */
 function simpson(f: (t: number) => number, a: number, b: number, n = 4000): number {
@@ -60,15 +30,7 @@ const CIN_2PI = simpson((t) => (t === 0 ? 0 : (1 - Math.cos(t)) / t), 0, 2 * Mat
 const SI_2PI = simpson((t) => (t === 0 ? 1 : Math.sin(t) / t), 0, 2 * Math.PI);
 const Z_HALF_WAVE = { re: (ETA / (4 * Math.PI)) * CIN_2PI, im: (ETA / (4 * Math.PI)) * SI_2PI };
 
-/** Resonant frequency (reactance through zero) between lo and hi, by bisection on direct solves. */
-function resonance(g: Geometry, lo: number, hi: number): number {
-	for (let i = 0; i < 40; i++) {
-		const m = (lo + hi) / 2;
-		if (solve(g, m).z_in.im < 0) lo = m;
-		else hi = m;
-	}
-	return (lo + hi) / 2;
-}
+const resonance = resonanceByBisection;
 
 describe('half-wave dipole (Balanis 4th ed., ch. 4)', () => {
 	it('the reference value itself: 73.08 + j42.54 Ω [Balanis4]', () => {

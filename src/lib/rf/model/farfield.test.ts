@@ -1,36 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { farField, polarization, radiation } from './farfield';
-import { buildGeometry, type Geometry } from './geometry';
 import { solve } from './solver';
-import type { WireModel } from './types';
+import { C0, centreFedDipole, geometryOf } from '$lib/testing/wire-models';
 
-const C0 = 299_792_458;
 const ETA = 376.730313668; // CODATA 2018 [CODATA2018]
 const db = (x: number) => 10 * Math.log10(x);
-
-function built(model: WireModel, f: number): Geometry {
-	const g = buildGeometry(model, f);
-	if (!g.ok) throw new Error(g.error.message);
-	return g.value;
-}
-const dipole = (length: number, radius: number, segments: number, sigma: number | null = null) =>
-	built(
-		{
-			wires: [
-				{
-					kind: 'wire',
-					name: 'd',
-					from: [0, 0, -length / 2],
-					to: [0, 0, length / 2],
-					radius,
-					segments
-				}
-			],
-			feed: { wire: 'd', position: 0.5 },
-			conductivity_s_per_m: sigma
-		},
-		C0 / length
-	);
+const built = geometryOf;
+const dipole = centreFedDipole;
 
 describe('polarization (IEEE Std 145-2013: right-hand = clockwise seen from behind the wave) [IEEE145]', () => {
 	// On the +z axis θ̂ = x̂, φ̂ = ŷ. With e^{jωt}, E = x̂ − jŷ is x̂ cos ωt + ŷ sin ωt: it turns from

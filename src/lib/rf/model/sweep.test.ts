@@ -1,9 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { buildGeometry } from './geometry';
+import { C0, resonanceByBisection } from '$lib/testing/wire-models';
 import { solve } from './solver';
 import { predictSweep, reflection, summarizeImpedance, vswrOf } from './sweep';
-
-const C0 = 299_792_458;
 
 describe('reflection and VSWR (Pozar, Microwave Engineering 4th ed., §2.3) [Pozar4]', () => {
 	it('Z = 100 Ω on 50 Ω: Γ = 1/3, VSWR 2; a match gives VSWR 1', () => {
@@ -96,13 +95,7 @@ describe('predicted sweep: a rational fit checked against direct solves', () => 
 			expect(Math.hypot(p.z_re - zd.re, p.z_im - zd.im)).toBeLessThan(0.05);
 		}
 		// the resonance agrees with a bisection on direct solves
-		let lo = 0.9 * f0;
-		let hi = 1.05 * f0;
-		for (let i = 0; i < 40; i++) {
-			const m = (lo + hi) / 2;
-			if (solve(g.value, m).z_in.im < 0) lo = m;
-			else hi = m;
-		}
+		const lo = resonanceByBisection(g.value, 0.9 * f0, 1.05 * f0);
 		expect(Math.abs(s.resonance_hz! - lo) / lo).toBeLessThan(1e-5);
 		expect(s.vswr2_band!.lo_hz).toBeLessThan(s.resonance_hz!);
 		expect(s.vswr2_band!.hi_hz).toBeGreaterThan(s.resonance_hz!);
