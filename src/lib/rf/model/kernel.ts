@@ -65,9 +65,72 @@ export function farPoints(dist: number, kLen: number): number {
 }
 
 /**
- * Far pair: Gauss product rule with `np` × `nq` points. `out` receives
- * [J00, J10, J01, J11] as re/im pairs (8 numbers), already divided by 4π.
+ * Far pair, first half: the reduced-kernel distances R between the `np` Gauss points on p and the
+ * `nq` on q, written to r[off…off + np·nq) (frequency-independent, so a sweep computes them once).
  */
+export function farDistances(
+	r: Float64Array,
+	off: number,
+	P: SegmentArrays,
+	p: number,
+	Q: SegmentArrays,
+	q: number,
+	a2: number,
+	np: number,
+	nq: number
+): void {
+	const rp = gaussLegendre(np);
+	const rq = gaussLegendre(nq);
+	const lp = P.len[p];
+	const lq = Q.len[q];
+	for (let i = 0; i < np; i++) {
+		const x = P.sx[p] + rp.t[i] * lp * P.ux[p];
+		const y = P.sy[p] + rp.t[i] * lp * P.uy[p];
+		const z = P.sz[p] + rp.t[i] * lp * P.uz[p];
+		for (let j = 0; j < nq; j++) {
+			const dx = x - (Q.sx[q] + rq.t[j] * lq * Q.ux[q]);
+			const dy = y - (Q.sy[q] + rq.t[j] * lq * Q.uy[q]);
+			const dz = z - (Q.sz[q] + rq.t[j] * lq * Q.uz[q]);
+			r[off + i * nq + j] = Math.sqrt(dx * dx + dy * dy + dz * dz + a2);
+		}
+	}
+}
+
+/** Far pair, second half: [J00, J10, J01, J11] (re/im, divided by 4π) from the distances at wavenumber k. */
+export function farFromDistances(
+	out: Float64Array,
+	r: Float64Array,
+	off: number,
+	np: number,
+	nq: number,
+	lp: number,
+	lq: number,
+	k: number
+): void {
+	const rp = gaussLegendre(np);
+	const rq = gaussLegendre(nq);
+	out.fill(0);
+	for (let i = 0; i < np; i++) {
+		let s0r = 0,
+			s0i = 0,
+			s1r = 0,
+			s1i = 0;
+		for (let j = 0; j < nq; j++) {
+			const d = r[off + i * nq + j];
+			const w = rq.w[j] / d;
+			const gr = Math.cos(k * d) * w;
+			const gi = -Math.sin(k * d) * w;
+			s0r += gr;
+			s0i += gi;
+			s1r += rq.t[j] * gr;
+			s1i += rq.t[j] * gi;
+		}
+		addOuter(out, rp.w[i], rp.t[i], s0r, s0i, s1r, s1i);
+	}
+	for (let i = 0; i < 8; i++) out[i] *= (lp * lq) / FOUR_PI;
+}
+
+/** Far pair in one call: Gauss product rule with `np` × `nq` points. */
 export function farPair(
 	out: Float64Array,
 	P: SegmentArrays,
@@ -79,37 +142,9 @@ export function farPair(
 	np: number,
 	nq: number
 ): void {
-	const rp = gaussLegendre(np);
-	const rq = gaussLegendre(nq);
-	const lp = P.len[p];
-	const lq = Q.len[q];
-	out.fill(0);
-	for (let i = 0; i < np; i++) {
-		const ti = rp.t[i];
-		const x = P.sx[p] + ti * lp * P.ux[p];
-		const y = P.sy[p] + ti * lp * P.uy[p];
-		const z = P.sz[p] + ti * lp * P.uz[p];
-		let s0r = 0,
-			s0i = 0,
-			s1r = 0,
-			s1i = 0;
-		for (let j = 0; j < nq; j++) {
-			const tj = rq.t[j];
-			const dx = x - (Q.sx[q] + tj * lq * Q.ux[q]);
-			const dy = y - (Q.sy[q] + tj * lq * Q.uy[q]);
-			const dz = z - (Q.sz[q] + tj * lq * Q.uz[q]);
-			const r = Math.sqrt(dx * dx + dy * dy + dz * dz + a2);
-			const wr = rq.w[j] / r;
-			const gr = Math.cos(k * r) * wr;
-			const gi = -Math.sin(k * r) * wr;
-			s0r += gr;
-			s0i += gi;
-			s1r += tj * gr;
-			s1i += tj * gi;
-		}
-		addOuter(out, rp.w[i], ti, s0r, s0i, s1r, s1i);
-	}
-	for (let i = 0; i < 8; i++) out[i] *= (lp * lq) / FOUR_PI;
+	const r = new Float64Array(np * nq);
+	farDistances(r, 0, P, p, Q, q, a2, np, nq);
+	farFromDistances(out, r, 0, np, nq, P.len[p], Q.len[q], k);
 }
 
 const gradedCache = new Map<number, Rule>();

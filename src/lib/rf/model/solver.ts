@@ -1,18 +1,10 @@
 import { complexMatrix, luFactor, luSolve, type ComplexLu } from './complex-lu';
+import { impedanceMatrix, loadImpedance, wireImpedancePerMetre } from './fill';
 import type { Geometry, Port } from './geometry';
-import {
-	farPair,
-	farPoints,
-	nearPair,
-	selfPair,
-	PAIR_FAR,
-	PAIR_NEAR,
-	PAIR_SHARED_END,
-	PAIR_SHARED_START,
-	type SegmentArrays
-} from './kernel';
-import { C, ETA0, MU0 } from './limits';
-import type { LumpedLoad } from './types';
+import type { Complex } from './types';
+
+export type { Complex };
+export { impedanceMatrix };
 
 /**
  * Thin-wire method of moments. The electric-field integral equation on the wire axis in
@@ -30,11 +22,6 @@ import type { LumpedLoad } from './types';
  * lumped loads add their impedance on the bases through their node.
  */
 
-export interface Complex {
-	re: number;
-	im: number;
-}
-
 export interface Solution {
 	f_hz: number;
 	geometry: Geometry;
@@ -50,135 +37,6 @@ export interface Solution {
 	p_wire: number;
 	p_loads: number;
 	timing: { fill_ms: number; lu_ms: number; solve_ms: number };
-}
-
-function loadImpedance(l: LumpedLoad, f_hz: number): Complex {
-	const w = 2 * Math.PI * f_hz;
-	if (l.arrangement === 'series') {
-		const x = (l.l_h ?? 0) * w - (l.c_f ? 1 / (w * l.c_f) : 0);
-		return { re: l.r_ohm ?? 0, im: x };
-	}
-	if (l.r_ohm === 0 || l.l_h === 0) return { re: 0, im: 0 };
-	const g = l.r_ohm ? 1 / l.r_ohm : 0;
-	const b = (l.c_f ?? 0) * w - (l.l_h ? 1 / (w * l.l_h) : 0);
-	const d = g * g + b * b;
-	return d === 0 ? { re: Infinity, im: 0 } : { re: g / d, im: -b / d };
-}
-
-/** Per-unit-length surface impedance of a round wire, Ω/m (skin depth ≪ radius). */
-export function wireImpedancePerMetre(f_hz: number, radius: number, sigma: number | null): number {
-	if (sigma === null) return 0;
-	return Math.sqrt((2 * Math.PI * f_hz * MU0) / (2 * sigma)) / (2 * Math.PI * radius);
-}
-
-const J = new Float64Array(8);
-
-function pairKind(g: Geometry, p: number, q: number, image: boolean): number {
-	const { node0, node1, grounded } = g;
-	const shares = (v: number) => (v === node0[q] || v === node1[q]) && (!image || grounded[v] === 1);
-	if (shares(node0[p])) return PAIR_SHARED_START;
-	if (shares(node1[p])) return PAIR_SHARED_END;
-	return PAIR_FAR;
-}
-
-/**
- * The impedance matrix at `f_hz`, order `g.bases`, interleaved re/im, with wire loss and loads.
- */
-export function impedanceMatrix(g: Geometry, f_hz: number): Float64Array {
-	const S = g.segments;
-	const nb = g.bases;
-	const z = complexMatrix(nb);
-	const k = (2 * Math.PI * f_hz) / C;
-	const eta = ETA0;
-	const { pieceStart, basisOf, sigma, alpha, beta } = g;
-	const row = 2 * nb;
-
-	const assemble = (p: number, q: number, Q: SegmentArrays, sign: number) => {
-		const dotu = S.ux[p] * Q.ux[q] + S.uy[p] * Q.uy[q] + S.uz[p] * Q.uz[q];
-		const inv = 1 / (k * S.len[p] * S.len[q]);
-		for (let i = pieceStart[p]; i < pieceStart[p + 1]; i++) {
-			const m = basisOf[i],
-				ai = alpha[i],
-				bi = beta[i];
-			for (let j = pieceStart[q]; j < pieceStart[q + 1]; j++) {
-				const n = basisOf[j],
-					aj = alpha[j],
-					bj = beta[j];
-				const ss = sign * sigma[i] * sigma[j];
-				const wr = ai * aj * J[0] + ai * bj * J[4] + bi * aj * J[2] + bi * bj * J[6];
-				const wi = ai * aj * J[1] + ai * bj * J[5] + bi * aj * J[3] + bi * bj * J[7];
-				// j·η·(k (u·u′) w − ββ′ J00 /(k ΔΔ′))
-				const tr = k * dotu * wr - bi * bj * inv * J[0];
-				const ti = k * dotu * wi - bi * bj * inv * J[1];
-				const vr = -eta * ti * ss;
-				const vi = eta * tr * ss;
-				const o = m * row + 2 * n;
-				z[o] += vr;
-				z[o + 1] += vi;
-				if (p !== q) {
-					const o2 = n * row + 2 * m;
-					z[o2] += vr;
-					z[o2 + 1] += vi;
-				}
-			}
-		}
-	};
-
-	const integrate = (p: number, q: number, Q: SegmentArrays, image: boolean) => {
-		const a2 = (S.rad[p] * S.rad[p] + Q.rad[q] * Q.rad[q]) / 2;
-		let kind = pairKind(g, p, q, image);
-		const mean = (S.len[p] + Q.len[q]) / 2;
-		const dx = S.sx[p] + (S.len[p] * S.ux[p]) / 2 - Q.sx[q] - (Q.len[q] * Q.ux[q]) / 2;
-		const dy = S.sy[p] + (S.len[p] * S.uy[p]) / 2 - Q.sy[q] - (Q.len[q] * Q.uy[q]) / 2;
-		const dz = S.sz[p] + (S.len[p] * S.uz[p]) / 2 - Q.sz[q] - (Q.len[q] * Q.uz[q]) / 2;
-		const dist = Math.sqrt(dx * dx + dy * dy + dz * dz) / mean;
-		if (kind === PAIR_FAR && dist < 1.5) kind = PAIR_NEAR;
-		if (kind === PAIR_FAR)
-			farPair(J, S, p, Q, q, a2, k, farPoints(dist, k * S.len[p]), farPoints(dist, k * Q.len[q]));
-		else nearPair(J, S, p, Q, q, a2, k, kind);
-	};
-
-	for (let p = 0; p < S.n; p++) {
-		for (let q = p; q < S.n; q++) {
-			if (p === q) selfPair(J, S.len[p], S.rad[p], k);
-			else integrate(p, q, S, false);
-			assemble(p, q, S, 1);
-			if (g.images) {
-				integrate(p, q, g.images, true);
-				assemble(p, q, g.images, -1);
-			}
-		}
-	}
-
-	// Wire loss: Z′·Δ·∫(α_i + β_i t)(α_j + β_j t) dt on each segment.
-	if (g.conductivity !== null) {
-		for (let p = 0; p < S.n; p++) {
-			const zs = wireImpedancePerMetre(f_hz, S.rad[p], g.conductivity) * S.len[p];
-			for (let i = pieceStart[p]; i < pieceStart[p + 1]; i++)
-				for (let j = pieceStart[p]; j < pieceStart[p + 1]; j++) {
-					const ov =
-						alpha[i] * alpha[j] +
-						(alpha[i] * beta[j] + beta[i] * alpha[j]) / 2 +
-						(beta[i] * beta[j]) / 3;
-					const v = zs * sigma[i] * sigma[j] * ov;
-					const o = basisOf[i] * row + 2 * basisOf[j];
-					z[o] += v;
-					z[o + 1] += v;
-				}
-		}
-	}
-	for (const { port, load } of g.loads) addAtPort(z, nb, port, loadImpedance(load, f_hz));
-	return z;
-}
-
-function addAtPort(z: Float64Array, nb: number, port: Port, v: Complex): void {
-	for (let a = 0; a < port.bases.length; a++)
-		for (let b = 0; b < port.bases.length; b++) {
-			const o = port.bases[a] * 2 * nb + 2 * port.bases[b];
-			const s = port.signs[a] * port.signs[b];
-			z[o] += s * v.re;
-			z[o + 1] += s * v.im;
-		}
 }
 
 function excite(nb: number, port: Port): Float64Array {

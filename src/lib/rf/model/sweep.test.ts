@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { buildGeometry } from './geometry';
+import { MAX_DIRECT_SOLVES } from './limits';
 import { C0, resonanceByBisection } from '$lib/testing/wire-models';
 import { solve } from './solver';
 import { predictSweep, reflection, summarizeImpedance, vswrOf } from './sweep';
@@ -99,6 +100,36 @@ describe('predicted sweep: a rational fit checked against direct solves', () => 
 		expect(Math.abs(s.resonance_hz! - lo) / lo).toBeLessThan(1e-5);
 		expect(s.vswr2_band!.lo_hz).toBeLessThan(s.resonance_hz!);
 		expect(s.vswr2_band!.hi_hz).toBeGreaterThan(s.resonance_hz!);
+	});
+
+	it('says so when the fit cannot meet its tolerance within the solve budget', () => {
+		const coarse = buildGeometry(
+			{
+				wires: [
+					{
+						kind: 'wire',
+						name: 'd',
+						from: [0, 0, -0.24 * lambda],
+						to: [0, 0, 0.24 * lambda],
+						radius: 5e-4,
+						segments: 8
+					}
+				],
+				feed: { wire: 'd', position: 0.5 }
+			},
+			1.3 * f0
+		);
+		if (!coarse.ok) throw new Error(coarse.error.message);
+		const s = predictSweep(coarse.value, {
+			lo_hz: 0.7 * f0,
+			hi_hz: 1.3 * f0,
+			points: 401,
+			reference_ohms: 50,
+			tolerance: 0
+		});
+		expect(s.fit!.within_tolerance).toBe(false);
+		expect(s.fit!.direct_solves).toBeLessThanOrEqual(MAX_DIRECT_SOLVES);
+		expect(s.points).toHaveLength(401);
 	});
 
 	it('short sweeps are solved point by point (no fit)', () => {

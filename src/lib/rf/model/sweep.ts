@@ -7,7 +7,8 @@ import { solve, type Complex } from './solver';
 /**
  * Predicted impedance over a band: direct solves at a few frequencies, a rational (AAA) fit
  * through them, and a check of that fit against direct solves at the midpoints between the
- * samples; while the check fails, the midpoints join the samples and the fit is made again.
+ * samples. Every other failing check joins the samples (the others stay checks), every interval
+ * between samples without a check gets one at its middle, and the fit is made and checked again.
  * The curve reported is always the fit that was checked.
  */
 
@@ -142,36 +143,47 @@ export function predictSweep(g: Geometry, o: SweepOptions): PredictedSweep {
 	const mid = (o.lo_hz + o.hi_hz) / 2;
 	const half = (o.hi_hz - o.lo_hz) / 2;
 	const xOf = (f: number) => (f - mid) / half;
-	let sf = linspace(o.lo_hz, o.hi_hz, start);
-	let sz = sf.map(direct);
-	let solves = sf.length;
+	type Sample = { f: number; z: Complex };
+	const solveAt = (f: number): Sample => ({ f, z: direct(f) });
+	let samples: Sample[] = linspace(o.lo_hz, o.hi_hz, start).map(solveAt);
+	let checks: Sample[] = [];
+	let solves = samples.length;
 	const out = [0, 0];
 	for (;;) {
-		const F = new Float64Array(sz.flatMap((v) => [v.re, v.im]));
-		const fit: RationalFit = aaa(sf.map(xOf), F, 1e-9);
+		// every interval between samples gets a check at its middle unless it holds one already
+		const open = samples
+			.slice(1)
+			.map((s, i) => [samples[i].f, s.f])
+			.filter(([lo, hi]) => !checks.some((c) => c.f > lo && c.f < hi));
+		const room = Math.max(0, MAX_DIRECT_SOLVES - solves);
+		const complete = open.length <= room;
+		checks = checks
+			.concat(open.slice(0, room).map(([lo, hi]) => solveAt((lo + hi) / 2)))
+			.sort((x, y) => x.f - y.f);
+		solves += Math.min(room, open.length);
+		const fit: RationalFit = aaa(
+			samples.map((s) => xOf(s.f)),
+			Float64Array.from(samples.flatMap((s) => [s.z.re, s.z.im])),
+			1e-9
+		);
 		const at = (f: number): Complex => (evaluateFit(fit, xOf(f), out), { re: out[0], im: out[1] });
-		const mids = sf.slice(1).map((f, i) => (f + sf[i]) / 2);
-		const budget = MAX_DIRECT_SOLVES - solves;
-		const every = Math.ceil(mids.length / Math.max(1, budget));
-		const checkAt = budget <= 0 ? [] : mids.filter((_, i) => i % every === 0);
-		const mz = checkAt.map(direct);
-		solves += mz.length;
-		let gErr = 0;
-		let zErr = 0;
-		mz.forEach((zd, i) => {
-			const zf = at(checkAt[i]);
-			const gd = reflection(zd, z0);
-			const gf = reflection(zf, z0);
+		const errors = checks.map((c) => {
+			const gd = reflection(c.z, z0);
+			const gf = reflection(at(c.f), z0);
 			const e = Math.hypot(gd.re - gf.re, gd.im - gf.im);
-			gErr = Number.isFinite(e) ? Math.max(gErr, e) : Infinity;
-			zErr = Math.max(zErr, Math.hypot(zd.re - zf.re, zd.im - zf.im));
+			return Number.isFinite(e) ? e : Infinity;
 		});
-		const ok = mz.length > 0 && gErr <= tolerance;
-		if (ok || checkAt.length < mids.length) {
+		const gErr = Math.max(0, ...errors);
+		const ok = complete && checks.length > 0 && gErr <= tolerance;
+		if (ok || !complete || solves >= MAX_DIRECT_SOLVES) {
+			const zErr = Math.max(
+				0,
+				...checks.map((c) => Math.hypot(c.z.re - at(c.f).re, c.z.im - at(c.f).im))
+			);
 			const summary = summarizeImpedance(freqs, freqs.map(at), z0, at);
 			const fitCheck: FitCheck = {
 				direct_solves: solves,
-				checked_points: mz.length,
+				checked_points: checks.length,
 				max_gamma_error: gErr,
 				max_z_error_ohms: zErr,
 				tolerance,
@@ -179,11 +191,11 @@ export function predictSweep(g: Geometry, o: SweepOptions): PredictedSweep {
 			};
 			return { ...summary, fit: fitCheck };
 		}
-		const merged = [
-			...sf.map((f, i) => [f, sz[i]] as const),
-			...mids.map((f, i) => [f, mz[i]] as const)
-		].sort((a, b) => a[0] - b[0]);
-		sf = merged.map((m) => m[0]);
-		sz = merged.map((m) => m[1]);
+		// Every other failing check becomes a sample; the rest stay checks of the next fit.
+		const promote = new Set(
+			checks.filter((_, i) => errors[i] > tolerance).filter((_, i) => i % 2 === 0)
+		);
+		samples = [...samples, ...promote].sort((x, y) => x.f - y.f);
+		checks = checks.filter((c) => !promote.has(c));
 	}
 }

@@ -5,6 +5,11 @@
  */
 
 export type Scalar = number | string;
+
+export interface Complex {
+	re: number;
+	im: number;
+}
 export type Vec3<S = number> = [S, S, S];
 export type Plane = 'xy' | 'yz' | 'zx';
 
