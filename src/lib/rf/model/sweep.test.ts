@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { buildGeometry } from './geometry';
 import { MAX_DIRECT_SOLVES } from './limits';
-import { C0, resonanceByBisection } from '$lib/testing/wire-models';
+import { C0, centreFedDipole, resonanceByBisection } from '$lib/testing/wire-models';
 import { solve } from './solver';
 import { predictSweep, reflection, summarizeImpedance, vswrOf } from './sweep';
 
@@ -61,23 +60,7 @@ describe('resonance and VSWR ≤ 2 band from impedance samples', () => {
 describe('predicted sweep: a rational fit checked against direct solves', () => {
 	const f0 = 868e6;
 	const lambda = C0 / f0;
-	const g = buildGeometry(
-		{
-			wires: [
-				{
-					kind: 'wire',
-					name: 'd',
-					from: [0, 0, -0.24 * lambda],
-					to: [0, 0, 0.24 * lambda],
-					radius: 5e-4,
-					segments: 40
-				}
-			],
-			feed: { wire: 'd', position: 0.5 }
-		},
-		1.3 * f0
-	);
-	if (!g.ok) throw new Error(g.error.message);
+	const g = { value: centreFedDipole(0.48 * lambda, 5e-4, 40) };
 
 	it('matches direct solves between its points, with fewer solves than points', () => {
 		const s = predictSweep(g.value, {
@@ -103,23 +86,7 @@ describe('predicted sweep: a rational fit checked against direct solves', () => 
 	});
 
 	it('says so when the fit cannot meet its tolerance within the solve budget', () => {
-		const coarse = buildGeometry(
-			{
-				wires: [
-					{
-						kind: 'wire',
-						name: 'd',
-						from: [0, 0, -0.24 * lambda],
-						to: [0, 0, 0.24 * lambda],
-						radius: 5e-4,
-						segments: 8
-					}
-				],
-				feed: { wire: 'd', position: 0.5 }
-			},
-			1.3 * f0
-		);
-		if (!coarse.ok) throw new Error(coarse.error.message);
+		const coarse = { value: centreFedDipole(0.48 * lambda, 5e-4, 8) };
 		const s = predictSweep(coarse.value, {
 			lo_hz: 0.7 * f0,
 			hi_hz: 1.3 * f0,
