@@ -5,6 +5,7 @@ import { solve } from '../src/lib/rf/model/solver';
 import { predictSweep } from '../src/lib/rf/model/sweep';
 import type { WireModel } from '../src/lib/rf/model/types';
 import { seededRandom } from '../src/lib/rf/synthetic-sweep';
+import { axialHelix } from '../src/lib/testing/wire-models';
 
 /**
  * Wire-model solver figures: a 101-point predicted sweep of a 60-segment dipole (target < 100 ms),
@@ -38,34 +39,6 @@ const dipole = (f0: number, segments: number, radius = 5e-4) =>
 		},
 		1.3 * f0
 	);
-
-function helix(f0: number): Geometry {
-	const lambda = C0 / f0;
-	const r = lambda / (2 * Math.PI);
-	const lead = 0.02 * lambda;
-	return geometry(
-		{
-			ground: true,
-			wires: [
-				{ kind: 'wire', name: 'lead', from: [r, 0, 0], to: [r, 0, lead], radius: 0.002 * lambda },
-				{
-					kind: 'helix',
-					name: 'coil',
-					base: [0, 0, lead],
-					axis: 'z',
-					turns: 6,
-					pitch: lambda * Math.tan((12.5 * Math.PI) / 180),
-					helix_radius: r,
-					pieces_per_turn: 16,
-					hand: 'right',
-					radius: 0.002 * lambda
-				}
-			],
-			feed: { wire: 'lead', position: 0 }
-		},
-		1.25 * f0
-	);
-}
 
 /** Median time of `runs` fresh sweeps (each on a fresh geometry, so nothing is kept between runs). */
 function timeSweep(make: () => Geometry, lo: number, hi: number, runs: number) {
@@ -106,7 +79,7 @@ export async function benchModel(
 		`dipole, ${d.segments} segments: 101-point predicted sweep`,
 		`${d.ms.toFixed(1)} ms (${d.solves} direct solves; target < 100 ms)`
 	);
-	const h = timeSweep(() => helix(1e9), 0.75e9, 1.25e9, 3);
+	const h = timeSweep(() => axialHelix(1e9, 'right', 1.25e9, 5.8e7), 0.75e9, 1.25e9, 3);
 	log(
 		`6-turn helix over ground, ${h.segments} segments: 101-point sweep`,
 		`${(h.ms / 1000).toFixed(2)} s (${h.solves} direct solves; target < 2 s)`

@@ -47,3 +47,41 @@ export function resonanceByBisection(g: Geometry, lo: number, hi: number): numbe
 	}
 	return (lo + hi) / 2;
 }
+
+/**
+ * A 6-turn axial-mode helix over a ground plane: circumference λ at f0, pitch angle 12.5°, wire
+ * diameter 0.004 λ, fed at the ground through a 0.02 λ lead; segments for `top_hz`.
+ */
+export function axialHelix(
+	f0: number,
+	hand: 'right' | 'left',
+	top_hz: number,
+	sigma: number | null = null
+): Geometry {
+	const lambda = C0 / f0;
+	const r = lambda / (2 * Math.PI);
+	const lead = 0.02 * lambda;
+	return geometryOf(
+		{
+			ground: true,
+			wires: [
+				{ kind: 'wire', name: 'lead', from: [r, 0, 0], to: [r, 0, lead], radius: 0.002 * lambda },
+				{
+					kind: 'helix',
+					name: 'coil',
+					base: [0, 0, lead],
+					axis: 'z',
+					turns: 6,
+					pitch: lambda * Math.tan((12.5 * Math.PI) / 180),
+					helix_radius: r,
+					pieces_per_turn: 16,
+					hand,
+					radius: 0.002 * lambda
+				}
+			],
+			feed: { wire: 'lead', position: 0 },
+			conductivity_s_per_m: sigma
+		},
+		top_hz
+	);
+}

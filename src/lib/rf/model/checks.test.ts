@@ -1,7 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { farField, radiatedPower } from './farfield';
-import type { Geometry } from './geometry';
-import { C0, centreFedDipole, geometryOf, resonanceByBisection } from '$lib/testing/wire-models';
+import {
+	axialHelix,
+	C0,
+	centreFedDipole,
+	geometryOf,
+	resonanceByBisection
+} from '$lib/testing/wire-models';
 import { impedanceMatrix, solve, solvePorts } from './solver';
 import type { WireModel } from './types';
 
@@ -259,34 +264,7 @@ describe('reciprocity (two ports)', () => {
 describe('axial-mode helix (Kraus, Antennas, ch. 7; quoted in Balanis 4th ed., §10.3.1)', () => {
 	// 6 turns, C = λ at f0, pitch angle 12.5°, fed from the ground plane through a 0.02 λ lead.
 	const f0 = 1e9;
-	const lambda = C0 / f0;
-	const helix = (hand: 'right' | 'left'): Geometry => {
-		const r = lambda / (2 * Math.PI);
-		const lead = 0.02 * lambda;
-		return built(
-			{
-				ground: true,
-				wires: [
-					{ kind: 'wire', name: 'lead', from: [r, 0, 0], to: [r, 0, lead], radius: 0.002 * lambda },
-					{
-						kind: 'helix',
-						name: 'coil',
-						base: [0, 0, lead],
-						axis: 'z',
-						turns: 6,
-						pitch: lambda * Math.tan((12.5 * Math.PI) / 180),
-						helix_radius: r,
-						pieces_per_turn: 16,
-						hand,
-						radius: 0.002 * lambda
-					}
-				],
-				feed: { wire: 'lead', position: 0 },
-				conductivity_s_per_m: null
-			},
-			1.2 * f0
-		);
-	};
+	const helix = (hand: 'right' | 'left') => axialHelix(f0, hand, 1.2 * f0);
 
 	it('input resistance of the order of 140·C/λ Ω, reactance well below it [Kraus]', () => {
 		// R ≈ 140·C/λ is Kraus's empirical figure for ¾ < C/λ < 4/3 (CHECKS: [C2] via Balanis);
