@@ -267,7 +267,7 @@ describe('axial-mode helix (Kraus, Antennas, ch. 7; quoted in Balanis 4th ed., �
 	const helix = (hand: 'right' | 'left') => axialHelix(f0, hand, 1.2 * f0);
 
 	it('input resistance of the order of 140·C/λ Ω, reactance well below it [Kraus]', () => {
-		// R ≈ 140·C/λ is Kraus's empirical figure for ¾ < C/λ < 4/3 (CHECKS: [C2] via Balanis);
+		// R ≈ 140·C/λ is Kraus's empirical figure for ¾ < C/λ < 4/3 (as quoted in Balanis 4th ed. §10.3.1 [Balanis4]);
 		// his feed was a coaxial line through the ground plane, ours a delta gap on a short lead, so
 		// only the order of magnitude and a mostly resistive input are checked.
 		const g = helix('right');

@@ -224,7 +224,7 @@ describe('refusals name the wire', () => {
 	});
 });
 
-describe('segment distance (Ericson §5.1.9)', () => {
+describe('segment distance (Ericson, Real-Time Collision Detection, §5.1.9) [Ericson2005]', () => {
 	it('skew, parallel and degenerate segments [calc]', () => {
 		expect(segmentDistance([0, 0, 0], [1, 0, 0], [0.5, 1, 1], [0.5, -1, 1]).dist).toBeCloseTo(
 			1,

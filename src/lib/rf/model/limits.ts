@@ -27,11 +27,11 @@ export const SEGMENTS_PER_WAVELENGTH = 20;
 /** …nor shorter than this many wire radii (the thin-wire kernel needs length ≫ radius). */
 export const MIN_SEGMENT_RADII = 4;
 
-/** Vacuum permeability, H/m (CODATA 2018 recommended value). */
+/** Vacuum permeability, H/m (CODATA 2018 recommended value [CODATA2018]). */
 export const MU0 = 1.25663706212e-6;
 /** Wave impedance of free space, Ω: η0 = μ0·c. */
 export const ETA0 = MU0 * C;
-/** Annealed copper, S/m (IEC 60028, 100 % IACS = 58.0 MS/m). */
+/** Annealed copper, S/m (IEC 60028: 100 % IACS = 58.0 MS/m at 20 °C [IEC60028]). */
 export const COPPER_S_PER_M = 5.8e7;
 
 export { C };

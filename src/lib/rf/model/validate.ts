@@ -195,7 +195,7 @@ export function resolvePoint(
 	return { item };
 }
 
-/** Closest distance between segments [p0, p1] and [q0, q1] (Ericson, Real-Time Collision Detection, §5.1.9). */
+/** Closest distance between segments [p0, p1] and [q0, q1] (Ericson, Real-Time Collision Detection, §5.1.9 [Ericson2005]). */
 export function segmentDistance(
 	p0: Vec3,
 	p1: Vec3,
