@@ -104,7 +104,16 @@ export function fieldWords(path: (string | number)[]): string {
 export const pathText = (path: (string | number)[]) =>
 	path.reduce<string>((s, k) => (typeof k === 'number' ? `${s}[${k}]` : s ? `${s}.${k}` : k), '');
 
-function describe(issue: z.core.$ZodIssue): string {
+const EXPECTED: Record<string, string> = {
+	number: 'a finite number',
+	array: 'a list',
+	object: 'an object',
+	string: 'text',
+	boolean: 'true or false'
+};
+
+/** A zod issue in words, for a message that names its field first. */
+export function describeIssue(issue: z.core.$ZodIssue): string {
 	const last = issue.path[issue.path.length - 1];
 	if (typeof last === 'string' && FIELD_WORDS[last] && issue.code !== 'unrecognized_keys')
 		return 'must be a list [x, y, z] of three values';
@@ -145,7 +154,7 @@ function firstIssue(error: z.ZodError, prefix: (string | number)[], label: strin
 	const field = fieldWords(issue.path.filter((k): k is string | number => typeof k !== 'symbol'));
 	const item = prefix[0] === 'wires' && typeof prefix[1] === 'number' ? prefix[1] : undefined;
 	return {
-		message: `${label}${field ? `${label ? ', ' : ''}${field}` : ''}: ${describe(issue)}`,
+		message: `${label}${field ? `${label ? ', ' : ''}${field}` : ''}: ${describeIssue(issue)}`,
 		path: pathText(path),
 		...(item !== undefined ? { item } : {})
 	};

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { radiation, type Radiation } from './farfield';
 import { buildGeometry, type Geometry } from './geometry';
 import { MAX_FREQUENCY_HZ, MAX_SEGMENTS, MAX_SWEEP_POINTS, MIN_FREQUENCY_HZ } from './limits';
-import { fieldWords, parseModel, pathText } from './parse';
+import { describeIssue, fieldWords, parseModel, pathText } from './parse';
 import { solve } from './solver';
 import { predictSweep, type PredictedSweep } from './sweep';
 import type { ModelIssue, Vec3, WireModel } from './types';
@@ -96,7 +96,7 @@ export function predict(request: unknown): PredictResponse {
 		return {
 			ok: false,
 			error: {
-				message: `${fieldWords(path) || 'request'}: ${issue.code === 'invalid_type' ? `must be ${issue.expected === 'number' ? 'a finite number' : `a ${issue.expected}`}` : issue.message}`,
+				message: `${fieldWords(path) || 'request'}: ${describeIssue(issue)}`,
 				path: pathText(path)
 			}
 		};

@@ -10,7 +10,7 @@ describe('Gauss–Legendre on [0, 1]', () => {
 			for (let d = 0; d <= 2 * n - 1; d++)
 				expect(apply(gaussLegendre(n), (t) => t ** d)).toBeCloseTo(1 / (d + 1), 13);
 		}
-		// degree 2n misses by the error term (n!)⁴/((2n+1)((2n)!)³)·f⁽²ⁿ⁾ on [0, 1] (A&S 25.4.30), f⁽²ⁿ⁾ = (2n)!
+		// degree 2n misses by the error term (n!)⁴/((2n+1)((2n)!)³)·f⁽²ⁿ⁾ on [0, 1] (A&S §25.4, Gauss’s formula; equation number not checked), f⁽²ⁿ⁾ = (2n)!
 		const fact = (k: number): number => (k <= 1 ? 1 : k * fact(k - 1));
 		for (const n of [1, 2, 3, 5, 8]) {
 			const miss = 1 / (2 * n + 1) - apply(gaussLegendre(n), (t) => t ** (2 * n));
