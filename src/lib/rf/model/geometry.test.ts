@@ -65,6 +65,32 @@ describe('default segments', () => {
 	});
 });
 
+describe('extra ports (for solvePorts)', () => {
+	it('each sits on a node; a bad one is named', () => {
+		const r = buildGeometry(
+			{
+				wires: [
+					wire([0, 0, -0.07], [0, 0, 0.07], { name: 'driven' }),
+					wire([0.05, 0, -0.07], [0.05, 0, 0.07], { name: 'parasite' })
+				],
+				feed: { wire: 'driven', position: 0.5 }
+			},
+			F,
+			{ ports: [{ wire: 'parasite', position: 1 / 3 }] }
+		);
+		if (!r.ok) throw new Error(r.error.message);
+		expect(r.value.ports).toHaveLength(2);
+		expect(r.value.ports[0]).toBe(r.value.feed);
+		expect(r.value.ports[1].position).toBeCloseTo(1 / 3, 12);
+		expect(r.value.ports[1].point[2]).toBeCloseTo(-0.07 + 0.14 / 3, 12);
+		const bad = buildGeometry(dipole, F, { ports: [{ wire: 'driven', position: -1 }] });
+		expect(!bad.ok && bad.error).toMatchObject({
+			message: 'port 2: position must lie between 0 and 1 along wire 1 "driven" (it is -1)',
+			path: 'ports[0].position'
+		});
+	});
+});
+
 describe('refusals name the wire', () => {
 	it('zero-length wire', () => {
 		expect(
@@ -183,7 +209,7 @@ describe('refusals name the wire', () => {
 		);
 		expect(e.item).toBe(1);
 		// a per-request cap below the constant
-		const small = buildGeometry(dipole, F, 5);
+		const small = buildGeometry(dipole, F, { maxSegments: 5 });
 		expect(!small.ok && small.error.message).toMatch(/more than the limit of 5/);
 	});
 

@@ -16,7 +16,10 @@ import { checkItems, checkPieces, itemLabel, pieceLabel, resolvePoint } from './
  * triangle per segment end on the ground plane (its image completes it).
  */
 
-/** Where a feed or load sits: the bases that carry its current, each with sign ±1. */
+/**
+ * Where a feed, load or port sits: the bases that carry its current, each with sign ±1 so that
+ * the port current is the one flowing along the wire (from → to) through that point.
+ */
 export interface Port {
 	bases: Int32Array;
 	signs: Float64Array;
@@ -45,6 +48,8 @@ export interface Geometry {
 	beta: Float64Array;
 	bases: number;
 	feed: Port;
+	/** The feed, then any ports asked for in GeometryOptions.ports. */
+	ports: Port[];
 	loads: { port: Port; load: LumpedLoad }[];
 	conductivity: number | null;
 	/** The frequency the default segment rule used. */
@@ -139,6 +144,13 @@ function mergeEnds(pieces: Piece[], tol: number): { ends: Int32Array; points: Ve
 	return { ends, points };
 }
 
+export interface GeometryOptions {
+	/** A per-request segment cap below MAX_SEGMENTS. */
+	maxSegments?: number;
+	/** More ports besides the feed (for solvePorts); segments are placed so each sits on a node. */
+	ports?: WirePoint[];
+}
+
 /**
  * Expands, checks and discretises a model. `top_hz` is the highest frequency it will be solved at
  * (for the default segment rule). Never throws for bad input: a failure names the wire.
@@ -146,9 +158,10 @@ function mergeEnds(pieces: Piece[], tol: number): { ends: Int32Array; points: Ve
 export function buildGeometry(
 	model: WireModel,
 	top_hz: number,
-	maxSegments = MAX_SEGMENTS
+	options: GeometryOptions = {}
 ): ModelResult<Geometry> {
-	const cap = Math.min(maxSegments, MAX_SEGMENTS);
+	const cap = Math.min(options.maxSegments ?? MAX_SEGMENTS, MAX_SEGMENTS);
+	const extraPorts = options.ports ?? [];
 	const warnings: string[] = [];
 	const fail = (error: ModelIssue): ModelResult<Geometry> => ({ ok: false, error });
 	const itemProblem = checkItems(model);
@@ -176,7 +189,8 @@ export function buildGeometry(
 			where: l as WirePoint,
 			path: `loads[${i}]`,
 			what: `load ${i + 1}`
-		}))
+		})),
+		...extraPorts.map((where, i) => ({ where, path: `ports[${i}]`, what: `port ${i + 2}` }))
 	];
 	for (const s of spots) {
 		const r = resolvePoint(model, s.where, s.path, s.what);
@@ -312,13 +326,15 @@ export function buildGeometry(
 		const j = Math.round(at.local * n);
 		const seg = segFirst[at.piece] + Math.max(0, j - 1);
 		const end = 2 * seg + (j === 0 ? 0 : 1);
+		const orient = j === 0 ? -1 : 1;
 		const node = j === 0 ? node0[seg] : node1[seg];
 		const idx: number[] = [];
 		const sg: number[] = [];
 		basisAt.forEach((b, m) => {
 			if (b.node !== node) return;
-			if (b.into === end) (idx.push(m), sg.push(1));
-			else if (b.out === end) (idx.push(m), sg.push(-1));
+			// signs make the port current flow along the wire (from → to) through the port
+			if (b.into === end) (idx.push(m), sg.push(orient));
+			else if (b.out === end) (idx.push(m), sg.push(-orient));
 		});
 		const label = pieceLabel(model, pieces[at.piece]);
 		if (idx.length === 0)
@@ -346,10 +362,12 @@ export function buildGeometry(
 	const feed = portAt(spots[0]);
 	if ('message' in feed) return fail(feed);
 	const loads: Geometry['loads'] = [];
+	const ports: Port[] = [feed];
 	for (let i = 1; i < spots.length; i++) {
 		const port = portAt(spots[i]);
 		if ('message' in port) return fail(port);
-		loads.push({ port, load: model.loads![i - 1] });
+		if (i <= (model.loads ?? []).length) loads.push({ port, load: model.loads![i - 1] });
+		else ports.push(port);
 	}
 	const geometry: Geometry = {
 		segments: segs,
@@ -366,6 +384,7 @@ export function buildGeometry(
 		beta: Float64Array.from(items, (x) => x.beta),
 		bases,
 		feed,
+		ports,
 		loads,
 		conductivity:
 			model.conductivity_s_per_m === undefined ? COPPER_S_PER_M : model.conductivity_s_per_m,

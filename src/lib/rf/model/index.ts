@@ -7,12 +7,12 @@
  *     parseModelTemplate(json) → evaluateModelTemplate(t, (formula, path) => number | { error })
  *   or evaluated model (API: every scalar a number, SI units: metres, degrees, ohms, henries, farads)
  *     parseModel(json)
- *   → WireModel → buildGeometry(model, top_hz, maxSegments?) (expand arcs/helices/plates, check,
+ *   → WireModel → buildGeometry(model, top_hz, { maxSegments?, ports? }) (expand arcs/helices/plates, check,
  *     cut into segments; failures name the wire: ModelResult { ok, error: { message, path, item } })
  *   → solve(geometry, f_hz)          one frequency: z_in, segment currents, powers
  *     predictSweep(geometry, {...})  band: fitted impedance, resonance, VSWR ≤ 2 band, fit check
  *     radiation(solution)            beam, gain/directivity, efficiency, F/B, axial ratio, two cuts
- *     solvePorts(geometry, ports, f) n-port Z matrix (reciprocity, coupling)
+ *     solvePorts(geometry, geometry.ports, f)  n-port Z matrix (feed + options.ports; reciprocity, coupling)
  *
  * For a worker thread: `predict(request)` takes and returns plain JSON-safe data
  *   request  { model, lo_hz, hi_hz, points?, reference_ohms?, radiation_hz?, max_segments? }
@@ -47,7 +47,13 @@ export type {
 	WirePoint
 } from './types';
 export { parseModel, parseModelTemplate, evaluateModelTemplate } from './parse';
-export { buildGeometry, defaultSegments, type Geometry, type Port } from './geometry';
+export {
+	buildGeometry,
+	defaultSegments,
+	type Geometry,
+	type GeometryOptions,
+	type Port
+} from './geometry';
 export { solve, solvePorts, impedanceMatrix, type Complex, type Solution } from './solver';
 export {
 	farField,

@@ -67,6 +67,12 @@ describe('predict: plain data in, plain data out', () => {
 		expect(r.view.feed).toEqual([0, 0, 0]);
 		expect(r.radiation!.beam.directivity_dbi).toBeGreaterThan(0);
 		expect(r.radiation!.cuts).toHaveLength(2);
+		// the whip's current at the feed is 1/Z_in for 1 V (Ohm's law), and falls to 0 at its top
+		const [re, im] = r.radiation!.segment_currents[0];
+		const z = { re: r.radiation!.z_re, im: r.radiation!.z_im };
+		const m = z.re * z.re + z.im * z.im;
+		expect(re).toBeCloseTo(z.re / m, 12);
+		expect(im).toBeCloseTo(-z.im / m, 12);
 	});
 
 	it('checkModel validates for the editor without solving', () => {

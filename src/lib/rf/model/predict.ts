@@ -37,7 +37,15 @@ export interface PredictResult extends PredictedSweep {
 	segments: number;
 	warnings: string[];
 	view: GeometryView;
-	radiation: (Radiation & { frequency_hz: number; z_re: number; z_im: number }) | null;
+	/** At `radiation_hz`: input impedance, radiation, and each segment's current at its start and end as [re, im, re, im] (A for 1 V at the feed, along the segment as drawn in `view`). */
+	radiation:
+		| (Radiation & {
+				frequency_hz: number;
+				z_re: number;
+				z_im: number;
+				segment_currents: number[][];
+		  })
+		| null;
 	elapsed_ms: number;
 }
 
@@ -77,7 +85,7 @@ export function checkModel(
 	| { ok: false; error: ModelIssue } {
 	const parsed = parseModel(model);
 	if (!parsed.ok) return parsed;
-	const g = buildGeometry(parsed.value, top_hz, maxSegments);
+	const g = buildGeometry(parsed.value, top_hz, { maxSegments });
 	if (!g.ok) return g;
 	return {
 		ok: true,
@@ -116,7 +124,7 @@ export function predict(request: unknown): PredictResponse {
 		};
 	const model: WireModel = parsed.value;
 	const top = Math.max(q.hi_hz, q.radiation_hz ?? 0);
-	const built = buildGeometry(model, top, q.max_segments);
+	const built = buildGeometry(model, top, { maxSegments: q.max_segments });
 	if (!built.ok) return { ok: false, error: { ...built.error, path: `model.${built.error.path}` } };
 	const g = built.value;
 	const z0 = q.reference_ohms ?? 50;
@@ -124,7 +132,19 @@ export function predict(request: unknown): PredictResponse {
 	let rad: PredictResult['radiation'] = null;
 	if (q.radiation_hz !== undefined) {
 		const sol = solve(g, q.radiation_hz);
-		rad = { frequency_hz: q.radiation_hz, z_re: sol.z_in.re, z_im: sol.z_in.im, ...radiation(sol) };
+		const segment_currents = Array.from({ length: g.segments.n }, (_, p) => [
+			sol.i_start[2 * p],
+			sol.i_start[2 * p + 1],
+			sol.i_end[2 * p],
+			sol.i_end[2 * p + 1]
+		]);
+		rad = {
+			frequency_hz: q.radiation_hz,
+			z_re: sol.z_in.re,
+			z_im: sol.z_in.im,
+			segment_currents,
+			...radiation(sol)
+		};
 	}
 	return {
 		ok: true,
