@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { buildGeometry, defaultSegments } from './geometry';
+import { buildGeometry } from './geometry';
+import { defaultSegments } from './segments';
 import { MAX_SEGMENTS } from './limits';
 import type { ModelItem, WireModel } from './types';
 import { segmentDistance } from './validate';

@@ -1,19 +1,22 @@
-import { expandItem, type ExpandedItem, type Piece } from './generators';
+import { buildBases } from './bases';
+import { expandItem, type Piece } from './generators';
 import type { SegmentArrays } from './kernel';
+import { C, COPPER_S_PER_M, MAX_SEGMENTS, MIN_SEGMENT_RADII } from './limits';
 import {
-	C,
-	COPPER_S_PER_M,
-	MAX_SEGMENTS,
-	MIN_SEGMENT_RADII,
-	SEGMENTS_PER_WAVELENGTH
-} from './limits';
+	defaultSegments,
+	locate,
+	mergeEnds,
+	mirror,
+	pieceLength,
+	segmentArrays,
+	type PointOnPiece
+} from './segments';
 import type { LumpedLoad, ModelIssue, ModelResult, Vec3, WireModel, WirePoint } from './types';
 import { checkItems, checkPieces, itemLabel, pieceLabel, resolvePoint } from './validate';
 
 /**
- * An evaluated model cut into segments, with the unknowns of the moment method: one triangle
- * (piecewise-linear) current per interior node, k − 1 at a junction of k segments, and one half
- * triangle per segment end on the ground plane (its image completes it).
+ * An evaluated model checked, expanded and cut into segments, with the unknowns of the moment
+ * method (bases.ts) and the ports of its feed, loads and any extra ports.
  */
 
 /**
@@ -54,94 +57,6 @@ export interface Geometry {
 	conductivity: number | null;
 	/** The frequency the default segment rule used. */
 	top_hz: number;
-}
-
-interface PointOnPiece {
-	piece: number;
-	local: number;
-}
-
-function pieceLength(p: Piece): number {
-	return Math.hypot(p.to[0] - p.from[0], p.to[1] - p.from[1], p.to[2] - p.from[2]);
-}
-
-/** The piece and position along it for a 0…1 position along a whole item. */
-function locate(exp: ExpandedItem, first: number, position: number): PointOnPiece {
-	const lens = exp.pieces.map(pieceLength);
-	const total = lens.reduce((a, b) => a + b, 0);
-	let s = position * total;
-	for (let i = 0; i < lens.length; i++) {
-		if (s <= lens[i] * (1 + 1e-12) || i === lens.length - 1)
-			return { piece: first + i, local: Math.min(1, Math.max(0, s / lens[i])) };
-		s -= lens[i];
-	}
-	return { piece: first, local: 0 };
-}
-
-/** Default segments: ≤ λ/20 at `top_hz` and ≥ 4 radii, then the fewest more that put every listed point on a node. */
-export function defaultSegments(
-	len: number,
-	radius: number,
-	top_hz: number,
-	locals: number[]
-): number {
-	let n = Math.max(1, Math.ceil(len / (C / top_hz / SEGMENTS_PER_WAVELENGTH) - 1e-9));
-	if (len / n < MIN_SEGMENT_RADII * radius)
-		n = Math.max(1, Math.floor(len / (MIN_SEGMENT_RADII * radius)));
-	const interior = locals.some((q) => q > 1e-9 && q < 1 - 1e-9);
-	if (interior) n = Math.max(n, 2);
-	for (let m = n; m <= 2 * n + 2; m++) {
-		const fits = locals.every((q) => {
-			const j = Math.round(q * m);
-			const inside = q <= 1e-9 || q >= 1 - 1e-9 || (j >= 1 && j <= m - 1);
-			return inside && Math.abs(q * m - j) < 1e-6;
-		});
-		if (fits) return m;
-	}
-	return n;
-}
-
-function arrays(n: number): SegmentArrays {
-	const f = () => new Float64Array(n);
-	return { n, sx: f(), sy: f(), sz: f(), ux: f(), uy: f(), uz: f(), len: f(), rad: f() };
-}
-
-function mirror(s: SegmentArrays): SegmentArrays {
-	const m = arrays(s.n);
-	m.sx.set(s.sx);
-	m.sy.set(s.sy);
-	m.ux.set(s.ux);
-	m.uy.set(s.uy);
-	m.len.set(s.len);
-	m.rad.set(s.rad);
-	for (let i = 0; i < s.n; i++) {
-		m.sz[i] = -s.sz[i];
-		m.uz[i] = -s.uz[i];
-	}
-	return m;
-}
-
-/** Merge piece end points closer than `tol` into nodes; returns the node of each end (2 per piece). */
-function mergeEnds(pieces: Piece[], tol: number): { ends: Int32Array; points: Vec3[] } {
-	const ends = new Int32Array(2 * pieces.length).fill(-1);
-	const pts = pieces.flatMap((p) => [p.from, p.to]);
-	const order = pts.map((_, i) => i).sort((a, b) => pts[a][0] - pts[b][0]);
-	const points: Vec3[] = [];
-	for (let oi = 0; oi < order.length; oi++) {
-		const i = order[oi];
-		if (ends[i] >= 0) continue;
-		ends[i] = points.length;
-		for (let oj = oi + 1; oj < order.length && pts[order[oj]][0] - pts[i][0] <= tol; oj++) {
-			const j = order[oj];
-			if (
-				ends[j] < 0 &&
-				Math.hypot(pts[j][0] - pts[i][0], pts[j][1] - pts[i][1], pts[j][2] - pts[i][2]) <= tol
-			)
-				ends[j] = points.length;
-		}
-		points.push(pts[i]);
-	}
-	return { ends, points };
 }
 
 export interface GeometryOptions {
@@ -243,7 +158,7 @@ export function buildGeometry(
 	}
 
 	// Segment arrays and nodes (piece ends keep their merged node; interior nodes are new).
-	const segs = arrays(total);
+	const segs = segmentArrays(total);
 	const node0 = new Int32Array(total);
 	const node1 = new Int32Array(total);
 	const pieceOf = new Int32Array(total);
@@ -277,48 +192,15 @@ export function buildGeometry(
 	const grounded = new Uint8Array(nodes);
 	if (model.ground) points.forEach((pt, k) => (grounded[k] = Math.abs(pt[2]) <= tol ? 1 : 0));
 
-	// Bases: at each node, attached segment ends in segment order.
-	const attached: number[][] = Array.from({ length: nodes }, () => []);
-	for (let k = 0; k < total; k++) {
-		attached[node0[k]].push(2 * k);
-		attached[node1[k]].push(2 * k + 1);
-	}
-	const items: { seg: number; basis: number; sigma: number; alpha: number; beta: number }[] = [];
-	// A segment end: into the node is +u at the end (t = 1, value t) and −u at the start (value 1 − t).
-	const piece = (end: number, basis: number, into: boolean) => {
-		const seg = end >> 1;
-		const atEnd = (end & 1) === 1;
-		items.push({
-			seg,
-			basis,
-			sigma: (atEnd ? 1 : -1) * (into ? 1 : -1),
-			alpha: atEnd ? 0 : 1,
-			beta: atEnd ? 1 : -1
-		});
-	};
-	let bases = 0;
-	const basisAt: { node: number; into: number; out: number }[] = [];
-	for (let v = 0; v < nodes; v++) {
-		const list = attached[v];
-		if (grounded[v]) {
-			for (const e of list) {
-				piece(e, bases, true);
-				basisAt.push({ node: v, into: e, out: -1 });
-				bases++;
-			}
-		} else {
-			for (let i = 1; i < list.length; i++) {
-				piece(list[0], bases, true);
-				piece(list[i], bases, false);
-				basisAt.push({ node: v, into: list[0], out: list[i] });
-				bases++;
-			}
-		}
-	}
-	items.sort((a, b) => a.seg - b.seg);
-	const pieceStart = new Int32Array(total + 1);
-	for (const it of items) pieceStart[it.seg + 1]++;
-	for (let k = 0; k < total; k++) pieceStart[k + 1] += pieceStart[k];
+	const {
+		count: bases,
+		at: basisAt,
+		pieceStart,
+		basisOf,
+		sigma,
+		alpha,
+		beta
+	} = buildBases(node0, node1, nodes, grounded);
 
 	const portAt = (spot: (typeof spots)[number]): Port | ModelIssue => {
 		const at = spot.at!;
@@ -378,10 +260,10 @@ export function buildGeometry(
 		pieceOf,
 		pieceLabels: pieces.map((p) => pieceLabel(model, p)),
 		pieceStart,
-		basisOf: Int32Array.from(items, (x) => x.basis),
-		sigma: Float64Array.from(items, (x) => x.sigma),
-		alpha: Float64Array.from(items, (x) => x.alpha),
-		beta: Float64Array.from(items, (x) => x.beta),
+		basisOf,
+		sigma,
+		alpha,
+		beta,
 		bases,
 		feed,
 		ports,

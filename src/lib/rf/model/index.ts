@@ -47,13 +47,8 @@ export type {
 	WirePoint
 } from './types';
 export { parseModel, parseModelTemplate, evaluateModelTemplate } from './parse';
-export {
-	buildGeometry,
-	defaultSegments,
-	type Geometry,
-	type GeometryOptions,
-	type Port
-} from './geometry';
+export { buildGeometry, type Geometry, type GeometryOptions, type Port } from './geometry';
+export { defaultSegments } from './segments';
 export { solve, solvePorts, impedanceMatrix, type Complex, type Solution } from './solver';
 export {
 	farField,

@@ -93,6 +93,7 @@ describe('parseModel', () => {
 		);
 		expect(bad((m) => (m.wires = [])).message).toBe('model, wires: must hold at least 1 entry');
 		expect(bad((m) => (m.loads[0].arrangement = 'shunt')).path).toBe('loads[0].arrangement');
+		expect(bad((m) => (m.loads = {} as never)).message).toBe('model, loads: must be a list');
 		expect(parseModel('wires').ok).toBe(false);
 		expect(parseModel(null).ok).toBe(false);
 		expect(parseModel([valid]).ok).toBe(false);

@@ -119,9 +119,7 @@ export function describeIssue(issue: z.core.$ZodIssue): string {
 		return 'must be a list [x, y, z] of three values';
 	switch (issue.code) {
 		case 'invalid_type':
-			return issue.expected === 'number'
-				? 'must be a finite number'
-				: `must be ${issue.expected === 'tuple' ? 'a list [x, y, z]' : `a ${issue.expected}`}`;
+			return `must be ${EXPECTED[issue.expected] ?? `a ${issue.expected}`}`;
 		case 'unrecognized_keys':
 			return `unknown field${issue.keys.length > 1 ? 's' : ''} ${issue.keys.map((k) => `"${k.slice(0, 40)}"`).join(', ')}`;
 		case 'invalid_value':
