@@ -7,16 +7,16 @@ import { predictedTouchstone } from './touchstone';
 const C0 = 299_792_458;
 const f0 = 435e6;
 const lambda = C0 / f0;
+// a ground-plane antenna in free space: a whip and four drooping radials, fed where they meet
 const model = {
-	ground: true,
 	wires: [
 		{ name: 'whip', from: [0, 0, 0], to: [0, 0, 0.24 * lambda], radius: 1e-3 },
 		...[0, 90, 180, 270].map((deg) => ({
-			from: [0, 0, 0.24 * lambda + 0.05],
+			from: [0, 0, 0],
 			to: [
 				0.25 * lambda * Math.cos((deg * Math.PI) / 180),
 				0.25 * lambda * Math.sin((deg * Math.PI) / 180),
-				0.1
+				-0.1
 			],
 			radius: 1e-3
 		}))
@@ -40,8 +40,7 @@ describe('predict: plain data in, plain data out', () => {
 		expect(bad({ ...request, points: 1e6 }).path).toBe('points');
 		expect(bad({ ...request, extra: 1 }).message).toMatch(/extra/);
 		expect(bad({ ...request, model: { ...model, wires: [] } }).path).toBe('model.wires');
-		// the first radial touches the whip: its end lies 0.05 m above the whip's top … but it starts
-		// on the whip's axis above the top, so move it onto the whip's middle instead
+		// a sixth wire starting on the whip's middle
 		const crossing = {
 			...model,
 			wires: [...model.wires, { from: [0, 0, 0.1], to: [0.1, 0, 0.1], radius: 1e-3 }]
