@@ -278,9 +278,24 @@ export function checkPieces(
 				`ends ${mm(lo)} above the ground plane, closer than its radius; end it at z = 0 to connect it, or raise it`
 			);
 	}
+	// boxes around each piece, grown by its radius: most pairs are told apart by them alone
+	const box = pieces.map((p) =>
+		[0, 1, 2].flatMap((c) => [
+			Math.min(p.from[c], p.to[c]) - p.radius,
+			Math.max(p.from[c], p.to[c]) + p.radius
+		])
+	);
+	const apart = (i: number, j: number) =>
+		box[i][1] < box[j][0] ||
+		box[j][1] < box[i][0] ||
+		box[i][3] < box[j][2] ||
+		box[j][3] < box[i][2] ||
+		box[i][5] < box[j][4] ||
+		box[j][5] < box[i][4];
 	for (let i = 0; i < pieces.length; i++) {
 		const a = pieces[i];
 		for (let j = i + 1; j < pieces.length; j++) {
+			if (apart(i, j)) continue;
 			const b = pieces[j];
 			const gap = a.radius + b.radius;
 			const shared = [ends[2 * i], ends[2 * i + 1]].filter(
