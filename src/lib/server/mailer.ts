@@ -5,10 +5,24 @@ import { building } from '$app/environment';
 import { db } from './db';
 import { mailQueue } from './db/schema';
 import { createMailer } from './mail';
-import { dataDir } from './config';
+import { dataDir, isProduction } from './config';
 
 export const outboxDir = () => join(dataDir(), 'outbox');
 export const usesOutbox = () => !env.SMTP_URL;
+
+/** What an operator must know about mail: a production server without SMTP sends none. */
+export function mailWarnings(): string[] {
+	if (!usesOutbox() || !isProduction()) return [];
+	return ['SMTP_URL is not set: no mail is delivered (sign-up confirmations, password resets); it is only written to the outbox folder.'];
+}
+
+/** Says so loudly at start: nobody reads the outbox of a production server by accident. */
+export function warnAboutMail(log: (line: string) => void = console.warn): void {
+	const warnings = mailWarnings();
+	if (warnings.length === 0) return;
+	const rule = '!'.repeat(78);
+	log([rule, ...warnings.map((w) => `!! ${w}`), `!! Outbox: ${outboxDir()}`, '!! Set SMTP_URL (see README, Configuration) to send mail.', rule].join('\n'));
+}
 
 let mailer: ReturnType<typeof createMailer> | null = null;
 function getMailer() {
@@ -20,14 +34,9 @@ function getMailer() {
 	return mailer;
 }
 
-/** Account mail (verification, reset) is sent at once: the person is waiting for it. */
-export async function sendNow(to: string, subject: string, text: string): Promise<void> {
-	await getMailer().send({ to, subject, text });
-}
-
 const MAX_ATTEMPTS = 5;
 
-/** Notifications go through the queue table, written in the caller's transaction, sent after commit. */
+/** All mail goes through the queue table, written in the caller's transaction, sent right after commit. */
 export function queueMail(
 	msg: { to: string; subject: string; text: string },
 	tx: Pick<typeof db, 'insert'> = db
@@ -70,6 +79,9 @@ export async function deliverQueued(now = Date.now()): Promise<number> {
 					.run();
 			}
 		}
+	} catch (e) {
+		// The queue itself could not be read or updated (the database is busy): the worker comes back.
+		console.error('mail queue: delivery stopped; the worker tries again shortly', e);
 	} finally {
 		delivering = false;
 	}
