@@ -11,6 +11,8 @@ import { sqlite } from '$lib/server/db';
 import {
 	BUSY_MESSAGE,
 	BUSY_TIMEOUT_MS,
+	busyResponse,
+	DatabaseBusyError,
 	isBusy,
 	RETRY_AFTER_SECONDS,
 	retryBusy
@@ -42,7 +44,13 @@ const session: Handle = async ({ event, resolve }) => {
 	const token = event.cookies.get(SESSION_COOKIE);
 	if (token) {
 		// Validation writes now and then (an hourly refresh, ending an expired session).
-		const result = await retryBusy(() => validateSessionToken(token));
+		let result: ReturnType<typeof validateSessionToken>;
+		try {
+			result = await retryBusy(() => validateSessionToken(token));
+		} catch (e) {
+			if (e instanceof DatabaseBusyError) return busyResponse();
+			throw e;
+		}
 		if (result) {
 			event.locals.user = result.user;
 			event.locals.session = result.session;
@@ -103,7 +111,7 @@ export const handle = sequence(requestId, session, apiOrigin, headers, pageCache
 
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
 	const errorId = event.locals.requestId ?? crypto.randomUUID();
-	if (isBusy(error)) {
+	if (isBusy(error) || error instanceof DatabaseBusyError) {
 		event.locals.busy = true;
 		return { message: BUSY_MESSAGE, errorId };
 	}

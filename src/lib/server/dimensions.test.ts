@@ -75,13 +75,13 @@ describe('assertFormulasCompile (design file import)', () => {
 		]);
 		// The save check lets a draft keep it; the import check does not.
 		expect(() => assertCompilable(content)).not.toThrow();
-		expect(() => assertFormulasCompile(content)).toThrow(/^rows\[1\] "gap": .*nowhere/);
+		expect(() => assertFormulasCompile(content)).toThrow(/^Row 2 "gap" \(rows\[1\]\): .*nowhere/);
 	});
 
 	it('refuses a dimension the editor refuses, and accepts a table that compiles', () => {
 		expect(() =>
 			assertFormulasCompile(withRows([{ key: 'bad', formula: '5.8 GHz', kind: 'resonant' }]))
-		).toThrow(/^rows\[0\] "bad": a resonant row must give/);
+		).toThrow(/^Row 1 "bad" \(rows\[0\]\): a resonant row must give/);
 		expect(() =>
 			assertFormulasCompile(withRows([{ key: 'side', formula: 'lambda / 4', kind: 'resonant' }]))
 		).not.toThrow();

@@ -80,9 +80,12 @@ export function assertCompilable(content: RevisionContent): CompiledTable {
 export function assertFormulasCompile(content: RevisionContent): void {
 	const table = assertCompilable(content);
 	const parts = [
-		...table.parameters.map((p, i) => ({ where: `parameters[${i}]`, key: p.def.key, error: p.error })),
-		...table.rows.map((r, i) => ({ where: `rows[${i}]`, key: r.def.key, error: r.error }))
+		...table.parameters.map((p, i) => ({ what: 'Parameter', i, where: `parameters[${i}]`, key: p.def.key, error: p.error })),
+		...table.rows.map((r, i) => ({ what: 'Row', i, where: `rows[${i}]`, key: r.def.key, error: r.error }))
 	].filter((p) => p.error);
 	const root = parts.find((p) => !p.error!.message.startsWith('depends on ')) ?? parts[0];
-	if (root) throw new DomainError(422, `${root.where} "${root.key}": ${root.error!.message}`, root.where);
+	if (root) {
+		const { what, i, where, key, error } = root;
+		throw new DomainError(422, `${what} ${i + 1} "${key}" (${where}): ${error!.message}. Nothing was imported.`, where);
+	}
 }

@@ -2,9 +2,10 @@
  * Another writer holds SQLite's lock (a script, a backup, a second server). The connection waits
  * only BUSY_TIMEOUT_MS in SQLite's own busy handler, which blocks the event loop; longer waits
  * happen here, between tries, with the event loop free. When the lock outlasts every try, the
- * request ends in a 503 that says when to come back (hooks.server.ts adds Retry-After).
+ * request ends in a 503 that says when to come back (hooks.server.ts adds Retry-After): a form
+ * failure where the route maps DomainErrors (the form keeps what was typed), an error page elsewhere.
  */
-import { error } from '@sveltejs/kit';
+import { DomainError } from '../errors';
 
 export const BUSY_TIMEOUT_MS = 20;
 /** Pauses between tries: about 2.5 s in all, then the request gives up. */
@@ -21,12 +22,29 @@ export function isBusy(e: unknown): boolean {
 	return false;
 }
 
+export class DatabaseBusyError extends DomainError {
+	constructor() {
+		super(503, BUSY_MESSAGE);
+		this.name = 'DatabaseBusyError';
+	}
+}
+
+/** The answer when even reading the session met the lock. */
+export const busyResponse = () =>
+	new Response(BUSY_MESSAGE, {
+		status: 503,
+		headers: {
+			'content-type': 'text/plain; charset=utf-8',
+			'retry-after': String(RETRY_AFTER_SECONDS)
+		}
+	});
+
 const pause = (ms: number) => new Promise<void>((resolve) => setTimeout(resolve, ms));
 
 /**
  * Runs a write, trying again while the database is busy. The write must be safe to repeat after a
  * busy failure: a transaction (immediate, see client.ts) fails at BEGIN, before it changes anything.
- * @throws HttpError 503 when the lock outlasts every try
+ * @throws DatabaseBusyError (a 503) when the lock outlasts every try
  */
 export async function retryBusy<T>(
 	write: () => T | Promise<T>,
@@ -37,7 +55,7 @@ export async function retryBusy<T>(
 			return await write();
 		} catch (e) {
 			if (!isBusy(e)) throw e;
-			if (attempt >= delays.length) error(503, BUSY_MESSAGE);
+			if (attempt >= delays.length) throw new DatabaseBusyError();
 			await pause(delays[attempt]);
 		}
 	}
