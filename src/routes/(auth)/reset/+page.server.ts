@@ -3,7 +3,6 @@ import { superValidate, message } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { resetRequestSchema } from '$lib/schemas/auth';
 import { requestPasswordReset } from '$lib/server/account-mail';
-import { retryBusy } from '$lib/server/db/busy';
 import { isLimited } from '$lib/server/rate-limit';
 import { readForm } from '$lib/server/forms';
 import type { Actions, PageServerLoad } from './$types';
@@ -18,7 +17,7 @@ export const actions: Actions = {
 		}
 		if (!form.valid) return fail(400, { form });
 		// Same page, in the same time, either way: the answer never tells whether the address has an account.
-		await retryBusy(() => requestPasswordReset(form.data.email));
+		requestPasswordReset(form.data.email);
 		redirect(303, '/reset?sent=1');
 	}
 };
