@@ -47,10 +47,30 @@ export function queueMail(
 	setTimeout(() => void deliverQueued(), 0);
 }
 
-let delivering = false;
-export async function deliverQueued(now = Date.now()): Promise<number> {
-	if (delivering) return 0;
-	delivering = true;
+let delivering: Promise<number> | null = null;
+let requested = false;
+
+/** Sends what is due. A call during a run makes that run look again when it ends, so no mail waits for the worker. */
+export function deliverQueued(): Promise<number> {
+	requested = true;
+	delivering ??= (async () => {
+		let sent = 0;
+		while (requested) {
+			requested = false;
+			sent += await deliverDue(Date.now());
+		}
+		return sent;
+	})().finally(() => (delivering = null));
+	return delivering;
+}
+
+/** Resolves once the deliveries queued so far have run (a test waits for it before its database goes). */
+export async function mailSettled(): Promise<void> {
+	await new Promise((resolve) => setTimeout(resolve, 0));
+	while (delivering) await delivering;
+}
+
+async function deliverDue(now: number): Promise<number> {
 	let sent = 0;
 	try {
 		const due = db
@@ -82,8 +102,6 @@ export async function deliverQueued(now = Date.now()): Promise<number> {
 	} catch (e) {
 		// The queue itself could not be read or updated (the database is busy): the worker comes back.
 		console.error('mail queue: delivery stopped; the worker tries again shortly', e);
-	} finally {
-		delivering = false;
 	}
 	return sent;
 }

@@ -1,4 +1,5 @@
-import { beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { mailSettled } from './mailer';
 import { and, eq } from 'drizzle-orm';
 import { createAccount } from './accounts';
 import { toSessionUser, type SessionUser } from './auth';
@@ -46,6 +47,9 @@ function submitted(family: 'dipole' | 'patch' = 'dipole') {
 
 const stateOf = (id: string) => getRevisionById(id)!.state;
 const ok = (summary = 'Checked the table against my own build.') => ({ verdict: 'approve', summary });
+
+// Notices are sent in the background: let them finish before this file's database goes.
+afterAll(mailSettled);
 
 beforeAll(async () => {
 	author = await person('rev-author@example.org', 'member');
