@@ -94,9 +94,10 @@ const headers: Handle = async ({ event, resolve }) => {
 	) {
 		response.headers.set('cache-control', 'private, no-store');
 	}
-	// A body left unread (an early 413, 415 or 429) would be parsed as the next request on this
-	// connection: close it, and the client sends the next one on a fresh connection.
-	if (event.request.body && !event.request.bodyUsed) response.headers.set('connection', 'close');
+	// A body left unread (an early 413, 415 or 429) stays in the socket, and the next request on this
+	// keep-alive connection would fail: read it to its end first. Past BODY_SIZE_LIMIT the read fails,
+	// and adapter-node discards the rest itself; either way the connection stays usable.
+	if (event.request.body && !event.request.bodyUsed) await drain(event.request.body);
 	response.headers.set('x-content-type-options', 'nosniff');
 	response.headers.set('referrer-policy', 'strict-origin-when-cross-origin');
 	response.headers.set('x-frame-options', 'DENY');
@@ -106,6 +107,15 @@ const headers: Handle = async ({ event, resolve }) => {
 	}
 	return response;
 };
+
+async function drain(body: ReadableStream<Uint8Array>): Promise<void> {
+	const reader = body.getReader();
+	try {
+		while (!(await reader.read()).done);
+	} catch {
+		// Over the limit or cut off: nothing more to read.
+	}
+}
 
 export const handle = sequence(requestId, session, apiOrigin, headers, pageCache);
 
