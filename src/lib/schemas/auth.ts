@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { z } from '../zod';
 
 export const EMAIL_MAX = 254;
 export const NAME_MAX = 60;

@@ -1,5 +1,5 @@
 /** Shared zod schemas for a design and one revision's content (forms, API routes, design files). */
-import { z } from 'zod';
+import { z } from '../zod';
 
 export const FAMILY_VALUES = [
 	'dipole',

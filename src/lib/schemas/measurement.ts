@@ -1,5 +1,5 @@
 /** Form fields of a measurement or build report upload, and of a photo upload (shared by page and server). */
-import { z } from 'zod';
+import { z } from '../zod';
 import { parseFrequency } from '$lib/rf/frequency-input';
 import { CSV_QUANTITIES, FREQUENCY_UNITS, REFLECTION_PARAMETERS } from '$lib/rf/sweep';
 

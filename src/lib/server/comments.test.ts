@@ -1,4 +1,5 @@
-import { beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { mailSettled } from './mailer';
 import { eq } from 'drizzle-orm';
 import { JSDOM } from 'jsdom';
 import { createAccount } from './accounts';
@@ -43,6 +44,9 @@ function submitted() {
 	submitRevision(author, revisionId);
 	return { slug, id: revisionId };
 }
+
+// Notices are sent in the background: let them finish before this file's database goes.
+afterAll(mailSettled);
 
 beforeAll(async () => {
 	author = await person('c-author@example.org', 'member');

@@ -1,7 +1,7 @@
 import { desc, eq, sql } from 'drizzle-orm';
 import { db } from './db';
 import { designs, revisions, users, type Design, type Revision } from './db/schema';
-import type { z } from 'zod';
+import type { z } from '$lib/zod';
 import { designMetaSchema, revisionContentSchema, type DesignMeta, type RevisionContent } from '$lib/schemas/design';
 import { newId } from './accounts';
 import { DomainError } from './errors';

@@ -1,4 +1,5 @@
-import { beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { mailSettled } from './mailer';
 import { eq } from 'drizzle-orm';
 import { createAccount } from './accounts';
 import { toSessionUser, type SessionUser } from './auth';
@@ -18,6 +19,9 @@ async function person(email: string, role: Role) {
 }
 
 const mails = (to: string) => db.select().from(mailQueue).where(eq(mailQueue.toAddress, to)).all();
+
+// Notices are sent in the background: let them finish before this file's database goes.
+afterAll(mailSettled);
 
 beforeAll(async () => {
 	author = await person('n-author@example.org', 'member');

@@ -4,7 +4,9 @@ import { requireVerifiedMember } from './guards';
 import { isLimited } from './rate-limit';
 import { loadDesignRevision } from './revision-view';
 import { DomainError } from './errors';
-import { formFields, formFile, UploadError } from './uploads';
+import { retryBusy } from './db/busy';
+import { FormBodyError, readFormData } from './forms';
+import { formFields, formFile, tooLarge, UploadError } from './uploads';
 import type { SessionUser } from './auth';
 import type { Revision } from './db/schema';
 
@@ -38,11 +40,17 @@ export async function uploadAction(
 	}
 	let form: FormData;
 	try {
-		form = await event.request.formData();
-	} catch {
-		return fail(400, {
-			message: 'The upload could not be read; send the form again.',
-			field: null,
+		form = await readFormData(event.request);
+	} catch (e) {
+		if (!(e instanceof FormBodyError)) throw e;
+		// Past the server's body limit the file is too large too: the same message as just over ours.
+		const problem =
+			e.status === 413
+				? tooLarge(e.declaredBytes ?? opts.max + 1, opts.max, opts.what)
+				: new UploadError(400, 'The upload could not be read; send the form again.');
+		return fail(problem.status, {
+			message: problem.message,
+			field: problem.field ?? null,
 			line: null,
 			column: null,
 			values: {}
@@ -53,7 +61,7 @@ export async function uploadAction(
 	let id: string;
 	try {
 		const file = await formFile(form, 'file', opts.max, opts.what);
-		id = (await store(user, revision!, { fields, file })).id;
+		id = (await retryBusy(() => store(user, revision!, { fields, file }))).id;
 	} catch (e) {
 		if (e instanceof DomainError) {
 			const where = e instanceof UploadError ? e : null;

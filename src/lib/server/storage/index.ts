@@ -9,6 +9,10 @@ export interface BlobStore {
 	get(key: string): Promise<Uint8Array | null>;
 	/** Remove the blob; removing a missing key is not an error. */
 	delete(key: string): Promise<void>;
+	/** The name of every blob held (for the start-up sweep); names need not be keys of ours. */
+	list(): AsyncIterable<string>;
+	/** Removes what writes cut short left behind; their names, relative to the store. */
+	removeTemporary(): Promise<string[]>;
 }
 
 export type StoreConfig = { driver: 'local'; dir: string } | ({ driver: 's3' } & S3StoreConfig);

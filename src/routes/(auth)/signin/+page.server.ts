@@ -5,8 +5,11 @@ import { dev } from '$app/environment';
 import { signInSchema } from '$lib/schemas/auth';
 import { checkCredentials } from '$lib/server/accounts';
 import { createSession, invalidateSession, setSessionCookie } from '$lib/server/auth';
+import { retryBusy } from '$lib/server/db/busy';
+import { readForm } from '$lib/server/forms';
 import { isLimited } from '$lib/server/rate-limit';
 import { safeNext } from '$lib/server/safe-next';
+import { signInThrottle } from '$lib/server/sign-in-throttle';
 import type { Actions, PageServerLoad } from './$types';
 
 const GENERIC_SIGNIN_ERROR = 'That e-mail and password do not match an account.';
@@ -20,19 +23,31 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 
 export const actions: Actions = {
 	default: async (event) => {
-		const form = await superValidate(event.request, zod4(signInSchema));
+		const form = await superValidate(await readForm(event), zod4(signInSchema));
 		const { password } = form.data;
 		form.data.password = '';
 		if (await isLimited('signIn', event)) {
 			return message(form, 'Too many sign-in attempts. Wait a minute and try again.', { status: 429 });
 		}
 		if (!form.valid) return fail(400, { form });
+		// Guessing one account from many addresses: its attempts take turns, further apart each time.
+		const turn = await signInThrottle.turn(form.data.email);
+		if (!turn.ok) {
+			return message(form, `Many sign-in attempts for this account right now. Wait ${turn.retryAfterSeconds} seconds and try again.`, { status: 429 });
+		}
 		const user = await checkCredentials(form.data.email, password);
-		if (!user) return message(form, GENERIC_SIGNIN_ERROR, { status: 400 });
+		if (!user) {
+			signInThrottle.failed(form.data.email);
+			return message(form, GENERIC_SIGNIN_ERROR, { status: 400 });
+		}
+		signInThrottle.succeeded(form.data.email);
 
 		// A fresh session at every sign-in; the one this browser had before ends.
-		if (event.locals.session) invalidateSession(event.locals.session.id);
-		const { token, session } = createSession(user.id);
+		const previous = event.locals.session?.id;
+		const { token, session } = await retryBusy(() => {
+			if (previous) invalidateSession(previous);
+			return createSession(user.id);
+		});
 		setSessionCookie(event.cookies, token, session, !dev);
 		redirect(303, safeNext(form.data.next, user.emailVerifiedAt ? '/designs' : '/account'));
 	}

@@ -6,6 +6,8 @@ import { peekEmailToken, resetPassword, TOKEN_MESSAGES } from '$lib/server/accou
 import { clearSessionCookie } from '$lib/server/auth';
 import { passwordProblem } from '$lib/server/password';
 import { isLimited } from '$lib/server/rate-limit';
+import { retryBusy } from '$lib/server/db/busy';
+import { readForm } from '$lib/server/forms';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ url }) => {
@@ -18,7 +20,7 @@ export const load: PageServerLoad = async ({ url }) => {
 
 export const actions: Actions = {
 	default: async (event) => {
-		const form = await superValidate(event.request, zod4(resetConfirmSchema));
+		const form = await superValidate(await readForm(event), zod4(resetConfirmSchema));
 		const { password } = form.data;
 		form.data.password = '';
 		if (await isLimited('reset', event)) {
@@ -27,7 +29,7 @@ export const actions: Actions = {
 		if (!form.valid) return fail(400, { form });
 		const problem = passwordProblem(password);
 		if (problem) return setError(form, 'password', problem);
-		const result = await resetPassword(form.data.token, password);
+		const result = await retryBusy(() => resetPassword(form.data.token, password));
 		if (!result.ok) return message(form, TOKEN_MESSAGES[result.reason], { status: 400 });
 		clearSessionCookie(event.cookies);
 		redirect(303, '/signin?reset=1');

@@ -2,9 +2,11 @@ import { error, fail, redirect } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/guards';
 import { compareRevisions, readableRevisions } from '$lib/server/compare';
 import { addComment, listThreads, noteLineCount, setResolved } from '$lib/server/comments';
-import { confirmReject, decisionFor, isModerator, isReviewer, reviewsFor, submitReview } from '$lib/server/reviews';
+import { confirmableRejects, confirmReject, decisionFor, isReviewer, reviewsFor, submitReview } from '$lib/server/reviews';
 import { DomainError } from '$lib/server/errors';
 import { isLimited } from '$lib/server/rate-limit';
+import { retryBusy } from '$lib/server/db/busy';
+import { readForm } from '$lib/server/forms';
 import { getDesignBySlug, ownerName } from '$lib/server/designs';
 import { claimBand, computeRevision } from '$lib/server/dimensions';
 import { contentOf } from '$lib/server/designs';
@@ -57,10 +59,7 @@ export const load: PageServerLoad = (event) => {
 		threads: listThreads(r, user),
 		reviews,
 		decision: decision && { state: decision.state, reason: decision.reason },
-		pendingRejects:
-			decision?.state === 'reject_pending' && isModerator(user)
-				? reviews.filter((v) => v.verdict === 'reject' && !v.confirmedAt).map((v) => ({ id: v.id, reviewerName: v.reviewerName }))
-				: [],
+		pendingRejects: decision?.state === 'reject_pending' ? confirmableRejects(r, design, user) : [],
 		can: {
 			review: isReviewer(user) && !isAuthor && r.state === 'submitted',
 			comment: r.state !== 'withdrawn' && r.state !== 'draft',
@@ -88,7 +87,7 @@ async function limited(event: RequestEvent) {
 export const actions: Actions = {
 	comment: async (event) => {
 		const { user, design, r } = open(event, true);
-		const data = await event.request.formData();
+		const data = await readForm(event);
 		const raw = {
 			body: text(data, 'body') ?? '',
 			anchor: text(data, 'anchor') || 'general',
@@ -106,7 +105,8 @@ export const actions: Actions = {
 		}
 		let id: string;
 		try {
-			id = addComment(user, r.id, { body: parsed.data.body, anchor: anchorFromForm(parsed.data), parentId: parsed.data.parent_id }).id;
+			const input = { body: parsed.data.body, anchor: anchorFromForm(parsed.data), parentId: parsed.data.parent_id };
+			id = (await retryBusy(() => addComment(user, r.id, input))).id;
 		} catch (e) {
 			return failed(e, 'comment', values);
 		}
@@ -114,9 +114,9 @@ export const actions: Actions = {
 	},
 	resolve: async (event) => {
 		const { user, design, r } = open(event, true);
-		const data = await event.request.formData();
+		const data = await readForm(event);
 		try {
-			setResolved(user, text(data, 'comment_id') ?? '', text(data, 'resolved') !== '0');
+			await retryBusy(() => setResolved(user, text(data, 'comment_id') ?? '', text(data, 'resolved') !== '0'));
 		} catch (e) {
 			return failed(e, 'resolve');
 		}
@@ -124,12 +124,12 @@ export const actions: Actions = {
 	},
 	review: async (event) => {
 		const { user, design, r } = open(event, true);
-		const data = await event.request.formData();
+		const data = await readForm(event);
 		const values: Values = { verdict: text(data, 'verdict') ?? '', summary: (text(data, 'summary') ?? '').slice(0, 6000) };
 		if (await limited(event)) return fail(429, { action: 'review', message: 'Too many changes at once; wait a minute.', field: null, values });
 		let id: string;
 		try {
-			id = submitReview(user, r.id, { verdict: values.verdict ?? '', summary: values.summary ?? '' }).id;
+			id = (await retryBusy(() => submitReview(user, r.id, { verdict: values.verdict ?? '', summary: values.summary ?? '' }))).id;
 		} catch (e) {
 			return failed(e, 'review', values);
 		}
@@ -137,9 +137,9 @@ export const actions: Actions = {
 	},
 	confirmReject: async (event) => {
 		const { user, design, r } = open(event, true);
-		const data = await event.request.formData();
+		const data = await readForm(event);
 		try {
-			confirmReject(user, text(data, 'review_id') ?? '');
+			await retryBusy(() => confirmReject(user, text(data, 'review_id') ?? ''));
 		} catch (e) {
 			return failed(e, 'confirmReject');
 		}

@@ -3,6 +3,7 @@ import { loadDesignRevision, revisionPageData } from '$lib/server/revision-view'
 import { requireVerifiedMember } from '$lib/server/guards';
 import { startRevision, submitRevision, withdrawRevision } from '$lib/server/revisions';
 import { DomainError } from '$lib/server/errors';
+import { retryBusy } from '$lib/server/db/busy';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ params, url, locals }) => {
@@ -10,9 +11,9 @@ export const load: PageServerLoad = ({ params, url, locals }) => {
 	return revisionPageData(design, revision!, url, locals.user);
 };
 
-function run<T>(fn: () => T) {
+async function run<T>(fn: () => T) {
 	try {
-		return { ok: true as const, value: fn() };
+		return { ok: true as const, value: await retryBusy(fn) };
 	} catch (e) {
 		if (e instanceof DomainError) return { ok: false as const, failure: fail(e.status, { message: e.message, field: e.field ?? null }) };
 		throw e;
@@ -20,24 +21,24 @@ function run<T>(fn: () => T) {
 }
 
 export const actions: Actions = {
-	submit: ({ params, locals }) => {
+	submit: async ({ params, locals }) => {
 		const user = requireVerifiedMember();
 		const { design, revision } = loadDesignRevision(params.slug, params.n, locals.user);
-		const r = run(() => submitRevision(user, revision!.id));
+		const r = await run(() => submitRevision(user, revision!.id));
 		if (!r.ok) return r.failure;
 		redirect(303, `/designs/${design.slug}/r/${revision!.number}?submitted=1`);
 	},
-	withdraw: ({ params, locals }) => {
+	withdraw: async ({ params, locals }) => {
 		const user = requireVerifiedMember();
 		const { design, revision } = loadDesignRevision(params.slug, params.n, locals.user);
-		const r = run(() => withdrawRevision(user, revision!.id));
+		const r = await run(() => withdrawRevision(user, revision!.id));
 		if (!r.ok) return r.failure;
 		redirect(303, `/designs/${design.slug}/r/${revision!.number}`);
 	},
-	newRevision: ({ params, locals }) => {
+	newRevision: async ({ params, locals }) => {
 		const user = requireVerifiedMember();
 		const { design } = loadDesignRevision(params.slug, params.n, locals.user);
-		const r = run(() => startRevision(user, design));
+		const r = await run(() => startRevision(user, design));
 		if (!r.ok) return r.failure;
 		redirect(303, `/designs/${design.slug}/r/${r.value.number}/edit`);
 	}

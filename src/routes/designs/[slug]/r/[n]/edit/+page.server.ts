@@ -5,6 +5,8 @@ import { contentOf } from '$lib/server/designs';
 import { DomainError } from '$lib/server/errors';
 import { requireVerifiedMember } from '$lib/server/guards';
 import { isLimited } from '$lib/server/rate-limit';
+import { retryBusy } from '$lib/server/db/busy';
+import { readForm } from '$lib/server/forms';
 import { loadDesignRevision } from '$lib/server/revision-view';
 import { saveDraft, submitRevision } from '$lib/server/revisions';
 import type { Actions, PageServerLoad } from './$types';
@@ -31,14 +33,14 @@ export const load: PageServerLoad = ({ params }) => {
 async function save(event: Parameters<Actions[string]>[0], andSubmit: boolean) {
 	const { user, design, r } = editable(event.params.slug!, event.params.n!);
 	if (await isLimited('write', event)) return fail(429, { message: 'Too many saves; wait a minute.', errors: {}, editor: null });
-	const editor = readEditorForm(await event.request.formData());
+	const editor = readEditorForm(await readForm(event));
 	const parsed = editorToContent(editor);
 	if (!parsed.ok) {
 		return fail(400, { message: 'Nothing was saved: fix the fields marked below.', errors: parsed.errors, editor });
 	}
 	try {
-		saveDraft(user, r.id, parsed.content);
-		if (andSubmit) submitRevision(user, r.id);
+		await retryBusy(() => saveDraft(user, r.id, parsed.content));
+		if (andSubmit) await retryBusy(() => submitRevision(user, r.id));
 	} catch (e) {
 		if (e instanceof DomainError) {
 			const saved = andSubmit && e.status === 422 ? ' The draft was saved.' : '';
