@@ -8,6 +8,7 @@ import { join } from 'node:path';
 import { benchEngine, BENCH_TABLE } from './engine';
 import { benchSweep } from './sweep';
 import { benchMeasurements } from './measurements';
+import { benchModel } from './model';
 import { frequencies, load, startBareServer, startBuiltServer } from './server';
 import type { RevisionContent } from '../src/lib/schemas/design';
 
@@ -49,7 +50,7 @@ function benchContent(): RevisionContent {
 	};
 }
 
-// `npm run bench -- http search` runs only the named sections (engine, sweeps, photos, http, search).
+// `npm run bench -- http search` runs only the named sections (engine, sweeps, model, photos, http, search).
 const SECTIONS = new Set(process.argv.slice(2));
 const wanted = (name: string) => SECTIONS.size === 0 || SECTIONS.has(name);
 
@@ -61,6 +62,10 @@ async function main() {
 	if (wanted('sweeps')) {
 		console.log('== sweeps (in process)');
 		for (const [k, v] of Object.entries(await benchSweep())) line(k, v.toFixed(1));
+	}
+	if (wanted('model')) {
+		console.log('== wire model solver (in process)');
+		await benchModel(line);
 	}
 	if (wanted('photos')) {
 		console.log('== photos (in process)');

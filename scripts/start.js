@@ -2,12 +2,9 @@
 import { spawnSync, spawn } from 'node:child_process';
 import { existsSync, statSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
+import { startEnv } from './start-env.js';
 
-const env = { ...process.env };
-env.PORT ??= '3000';
-env.ORIGIN ??= `http://localhost:${env.PORT}`;
-env.DATABASE_URL ??= './data/bandwright.db';
-env.BODY_SIZE_LIMIT ??= '16M'; // uploads: sweeps ≤ 10 MB, images ≤ 15 MB, checked again in code
+const env = startEnv();
 
 function newestMtime(dir) {
 	let newest = 0;

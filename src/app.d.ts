@@ -11,6 +11,8 @@ declare global {
 			user: SessionUser | null;
 			session: Session | null;
 			requestId: string;
+			/** Set by handleError when a write met a database lock; the response becomes a 503. */
+			busy?: boolean;
 		}
 	}
 }

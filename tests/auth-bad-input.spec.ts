@@ -102,7 +102,10 @@ test('sign-in is rate limited per address and browser', async ({ playwright }) =
 	});
 	let limited = false;
 	for (let i = 0; i < 40 && !limited; i++) {
-		const res = await ctx.post('/signin', { form: { email: 'nobody@example.org', password: 'x' } });
+		// A new address each time: this is the per-browser limit, not the per-account slow-down.
+		const res = await ctx.post('/signin', {
+			form: { email: `nobody-${i}@example.org`, password: 'x' }
+		});
 		limited = res.status() === 429;
 	}
 	expect(limited).toBe(true);

@@ -16,6 +16,22 @@ const fixture = (name: string) => readFileSync(`src/lib/testing/sweeps/${name}`)
 const PASSING = touchstone(resonanceRows(2450, 8, 50, 2200, 2700, 401));
 // Resonance at 2300 MHz: the VSWR ≤ 2 band ends near 2403 MHz, short of a 2.5 GHz band edge
 const MISSING = touchstone(resonanceRows(2300, 8, 50, 2100, 2600, 401));
+// A 3-port file: the first data line holds the frequency and three pairs (Touchstone 1.1)
+const THREE_PORT = '# GHz S MA R 50\n1 0.5 0 0.1 0 0.1 0\n 0.1 0 0.5 0 0.1 0\n 0.1 0 0.1 0 0.5 0\n';
+// The passing sweep swept wide (|S11| 0.9926 at 1 and 6 GHz [calc]) and read 0.8 % high out there,
+// as a calibration can near total reflection
+const NOISY = touchstone(
+	resonanceRows(2450, 8, 50, 1000, 6000, 501).map(([f, m, a]) => [f, m > 0.99 ? m * 1.008 : m, a])
+);
+// The same series RLC as Z-parameters normalized to R (Touchstone 1.1): z = 1 + jQ(f/f0 − f0/f)
+const Z_FILE = ['! invented Z-parameter export', '# MHz Z RI R 50']
+	.concat(
+		Array.from({ length: 401 }, (_, i) => {
+			const f = 2200 + (500 * i) / 400;
+			return `${f} 1 ${8 * (f / 2450 - 2450 / f)}`;
+		})
+	)
+	.join('\n');
 
 async function analyze(
 	request: import('@playwright/test').APIRequestContext,
@@ -60,11 +76,17 @@ test.describe('POST /api/v1/sweeps/analyze', () => {
 		const z = await analyze(request, PASSING, '?z0=abc');
 		expect((await z.json()).error.field).toBe('z0');
 
-		const two = await analyze(request, fixture('two-port.s2p'));
-		expect(two.status()).toBe(422);
-		expect((await two.json()).error).toMatchObject({
-			line: 3,
-			message: expect.stringMatching(/only 1-port/i)
+		const three = await analyze(request, THREE_PORT);
+		expect(three.status()).toBe(422);
+		expect((await three.json()).error).toMatchObject({
+			line: 2,
+			message: expect.stringMatching(/only 1-port and 2-port files are read/i)
+		});
+		const s22 = await analyze(request, PASSING, '?parameter=s22');
+		expect(s22.status()).toBe(422);
+		expect((await s22.json()).error).toMatchObject({ field: 'parameter' });
+		expect((await (await analyze(request, PASSING, '?parameter=s21')).json()).error).toMatchObject({
+			field: 'parameter'
 		});
 		const after = await analyze(request, '! x\n2.0 0.5 10\n# MHz S MA R 50\n2.1 0.5 10\n');
 		expect((await after.json()).error).toMatchObject({ line: 3, column: 1 });
@@ -120,10 +142,10 @@ test('the author uploads a sweep, sees the charts and the claim check, and downl
 	await uploadSweep(page, base, 'photo.s1p', await jpegWithGps(64, 48));
 	await page.getByRole('button', { name: 'Upload measurement' }).click();
 	await expect(page.getByTestId('upload-error')).toContainText('This is an image');
-	await uploadSweep(page, base, 'two.s1p', fixture('two-port.s2p'));
+	await uploadSweep(page, base, 'three.s3p', THREE_PORT);
 	await page.getByRole('button', { name: 'Upload measurement' }).click();
 	await expect(page.getByTestId('upload-error')).toContainText(
-		/only 1-port.*\(line 3, column 1\)/i
+		/only 1-port and 2-port files are read.*\(line 2, column 1\)/i
 	);
 
 	// 11 MB passes adapter-node's BODY_SIZE_LIMIT (16M here) and is refused by our 10 MB limit
@@ -154,6 +176,62 @@ test('the author uploads a sweep, sees the charts and the claim check, and downl
 	expect(file.headers()['content-disposition']).toMatch(/^attachment; filename="my-biquad\.s1p"/);
 	expect(file.headers()['x-content-type-options']).toBe('nosniff');
 	expect(await file.text()).toBe(PASSING);
+});
+
+test.describe('files from real instruments', () => {
+	test('the analyze API returns warnings, and reads S22 of a 2-port file when asked', async ({
+		request
+	}) => {
+		const noisy = await (await analyze(request, NOISY)).json();
+		expect(noisy.warnings).toEqual([
+			{
+				code: 'above_unity',
+				message: expect.stringMatching(/points read \|S11\| above 1.*calibration noise/),
+				count: expect.any(Number),
+				max_excess: expect.any(Number),
+				frequency_hz: expect.any(Number)
+			}
+		]);
+		expect(noisy.min_vswr).toBeLessThan(1.01);
+		// the fixture's line 3: S11 0.5∠−10°, S22 0.4∠−30° (MA); VSWR = (1 + |Γ|)/(1 − |Γ|) [calc]
+		const two = await (await analyze(request, fixture('two-port.s2p'))).json();
+		expect(two.min_vswr).toBeCloseTo(3, 9);
+		expect(two.warnings[0]).toMatchObject({ code: 'two_port_parameter', count: null });
+		const port2 = await (await analyze(request, fixture('two-port.s2p'), '?parameter=S22')).json();
+		expect(port2.min_vswr).toBeCloseTo(1.4 / 0.6, 9);
+		expect(port2.warnings[0].message).toMatch(/^2-port file: S22/);
+	});
+
+	test('a builder uploads a sweep with calibration noise and a Z file, and sees what was odd', async ({
+		page
+	}) => {
+		await signIn(page, DEMO.author);
+		const base = await newSubmittedDesign(page);
+		await uploadSweep(page, base, 'wide-sweep.s1p', NOISY);
+		await page.getByRole('button', { name: 'Upload measurement' }).click();
+		await expect(page).toHaveURL(new RegExp(`${base}\\?added=`));
+		await expect(page.getByTestId('sweep-added')).toContainText('read the note on the file below');
+		const id = new URL(page.url()).searchParams.get('added');
+		const stored = await (await page.request.get(`/api/v1/measurements/${id}`)).json();
+		expect(stored.warnings).toEqual([
+			expect.objectContaining({ code: 'above_unity', count: expect.any(Number) })
+		]);
+		const first = page.getByTestId('measurement').first();
+		await expect(first.getByTestId('claim-check')).toHaveText('Meets the claim');
+		await expect(first.getByTestId('sweep-warnings')).toContainText(
+			/points read \|S11\| above 1, the largest 1\.00\d+ at .*calibration noise.*VSWR there is off the scale/
+		);
+
+		await uploadSweep(page, base, 'analyser-z.s1p', Z_FILE);
+		await page.getByRole('button', { name: 'Upload measurement' }).click();
+		await expect(page).toHaveURL(new RegExp(`${base}\\?added=`));
+		const second = page.getByTestId('measurement').nth(1);
+		await expect(second.getByTestId('sweep-warnings')).toHaveText(
+			"Z-parameter file: Z11, normalized to R = 50 Ω as Touchstone 1.x writes it, was converted to S11 for the file's reference impedance of 50 Ω: Γ = (Z − R)/(Z + R)."
+		);
+		await expect(second.getByTestId('claim-check')).toHaveText('Meets the claim');
+		await expect(page.getByTestId('sweep-charts').locator('path.trace')).toHaveCount(4);
+	});
 });
 
 test('another member files a build report that misses, on a demo design', async ({ page }) => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { claimVerdict, fileSize, returnLossAtVswr } from './measurement-text';
+import { claimVerdict, fileSize, returnLossAtVswr, vswrText } from './measurement-text';
 
 const claim = { band_lo_hz: 2.4e9, band_hi_hz: 2.5e9, vswr_max: 2, scaled: false };
 
@@ -9,6 +9,11 @@ describe('measurement words', () => {
 		expect(returnLossAtVswr(2)).toBeCloseTo(9.542, 3);
 		expect(returnLossAtVswr(1.5)).toBeCloseTo(13.979, 3);
 		expect(returnLossAtVswr(3)).toBeCloseTo(6.021, 3);
+	});
+
+	it('an infinite VSWR (null in the API) reads off the scale, never as a number', () => {
+		expect(vswrText(null)).toBe('off the scale');
+		expect(vswrText(1.5)).toBe('1.50');
 	});
 
 	it('says how much a claim is missed by, and on which side', () => {

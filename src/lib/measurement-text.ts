@@ -65,3 +65,8 @@ export function fileSize(bytes: number): string {
 			? `${(bytes / 1024).toFixed(0)} kB`
 			: `${(bytes / 1024 / 1024).toFixed(1)} MB`;
 }
+
+/** A VSWR figure for the measurement list; null (|S11| ≥ 1, infinite VSWR) is off the scale. */
+export function vswrText(vswr: number | null): string {
+	return vswr === null ? 'off the scale' : vswr.toFixed(2);
+}

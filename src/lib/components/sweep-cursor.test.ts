@@ -29,7 +29,7 @@ describe('valueNear and sampleSpacing', () => {
 		expect(valueNear(f, v, 118, 10)).toBe(1.5);
 		expect(valueNear(f, v, 109, 10)).toBeNull();
 		expect(valueNear(f, v, 95, 10)).toBe(3);
-		expect(valueNear(f, v, 200, 10)).toBeNull();
+		expect(valueNear(f, v, 200, 10)).toBeUndefined();
 	});
 
 	it('averages the spacing', () => {

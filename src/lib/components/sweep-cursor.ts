@@ -36,14 +36,14 @@ export function cursorKeyTarget(
 	return clamp(next, 0, length - 1);
 }
 
-/** The value of the sample nearest `hz`, or null when `hz` lies more than one spacing outside. */
+/** The value of the sample nearest `hz` (null where the series holds null), or undefined when `hz` lies more than one spacing outside. */
 export function valueNear(
 	f: ArrayLike<number>,
 	values: ArrayLike<number | null>,
 	hz: number,
 	spacing: number
-): number | null {
+): number | null | undefined {
 	const i = nearestIndex(f, hz);
-	if (i < 0 || hz < f[0] - spacing || hz > f[f.length - 1] + spacing) return null;
+	if (i < 0 || hz < f[0] - spacing || hz > f[f.length - 1] + spacing) return undefined;
 	return values[i] ?? null;
 }

@@ -21,6 +21,11 @@ describe('linePath', () => {
 		const d = linePath([1, 2, 3], [null, 2, Number.NaN], id, id);
 		expect(d).toBe('M2.0,2.0 h0');
 	});
+
+	it('draws null at nullAt when given (an infinite VSWR at the top edge)', () => {
+		const d = linePath([1, 2, 3], [1, null, 3], id, id, 9);
+		expect(d).toBe('M1.0,1.0 L2.0,9.0 L3.0,3.0');
+	});
 });
 
 describe('bestPoint', () => {
@@ -49,7 +54,9 @@ describe('valueAxisTop and formatting', () => {
 		expect(formatSweepValue(1.234, 'vswr')).toBe('1.23');
 		expect(formatSweepValue(14.26, 'vswr')).toBe('14.3');
 		expect(formatSweepValue(19.08, 'rl_db')).toBe('19.1 dB');
-		expect(formatSweepValue(null, 'vswr')).toBe('—');
+		expect(formatSweepValue(null, 'vswr')).toBe('off scale'); // |S11| ≥ 1: infinite VSWR
+		expect(formatSweepValue(undefined, 'vswr')).toBe('—'); // no sample there
+		expect(formatSweepValue(null, 'rl_db')).toBe('—');
 	});
 });
 

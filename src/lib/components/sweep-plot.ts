@@ -11,7 +11,7 @@ export interface SweepSeries {
 	label: string;
 	/** Ascending frequencies in Hz. */
 	f_hz: number[];
-	/** VSWR (≥ 1) or return loss in positive dB, one per frequency; null is a gap. */
+	/** VSWR (≥ 1) or return loss in positive dB, one per frequency; null is a gap (for VSWR: off the scale). */
 	values: (number | null)[];
 	colorIndex?: number;
 	/** The point to mark; when absent the lowest VSWR (highest return loss) is found. */
@@ -21,18 +21,22 @@ export interface SweepSeries {
 const usable = (v: number | null | undefined): v is number =>
 	typeof v === 'number' && Number.isFinite(v);
 
-/** SVG path data; a null or non-finite value ends the current subpath, so the line breaks there. */
+/**
+ * SVG path data; a null or non-finite value ends the current subpath, so the line breaks there,
+ * unless `nullAt` is given: then a null is drawn at that value (an infinite VSWR at the top edge).
+ */
 export function linePath(
 	f: ArrayLike<number>,
 	values: ArrayLike<number | null>,
 	x: (hz: number) => number,
-	y: (value: number) => number
+	y: (value: number) => number,
+	nullAt?: number
 ): string {
 	const parts: string[] = [];
 	let run = 0;
 	const n = Math.min(f.length, values.length);
 	for (let i = 0; i < n; i++) {
-		const v = values[i];
+		const v = values[i] === null && nullAt !== undefined ? nullAt : values[i];
 		if (!usable(v) || !Number.isFinite(f[i])) {
 			if (run === 1) parts.push('h0');
 			run = 0;
@@ -75,10 +79,12 @@ export function valueAxisTop(
 	return Math.min(60, Math.max(20, Math.ceil((max + 2) / 10) * 10));
 }
 
+/** A value for the read-out: null is an infinite VSWR ('off scale'); undefined is no sample. */
 export function formatSweepValue(
 	value: number | null | undefined,
 	quantity: SweepQuantity
 ): string {
+	if (value === null && quantity === 'vswr') return 'off scale';
 	if (!usable(value)) return '—';
 	if (quantity === 'rl_db') return `${value.toFixed(1)} dB`;
 	return value >= 10 ? value.toFixed(1) : value.toFixed(2);

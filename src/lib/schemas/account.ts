@@ -1,5 +1,5 @@
 /** The account page's notification settings as posted (unchecked boxes are absent, so false). */
-import { z } from 'zod';
+import { z } from '../zod';
 import { FAMILY_VALUES } from './design';
 
 export const notificationsFormSchema = z.object({

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { z } from '../zod';
 
 const EMAIL_MAX = 254;
 const NAME_MAX = 60;

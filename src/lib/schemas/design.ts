@@ -1,5 +1,5 @@
 /** Shared zod schemas for a design and one revision's content (forms, API routes, design files). */
-import { z } from 'zod';
+import { z } from '../zod';
 import { MAX_FREQUENCY_HZ } from '../rf/units/frequency';
 
 export const FAMILY_VALUES = [

@@ -2,7 +2,7 @@
  * The draft editor's form as posted: one input per cell, names repeated per row, so it works
  * without JavaScript. Everything stays text here; editorToContent checks the values.
  */
-import { z } from 'zod';
+import { z } from '../zod';
 
 const cells = z.array(z.string()).default([]);
 const text = z.string().default('');

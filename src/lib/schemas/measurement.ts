@@ -1,7 +1,7 @@
 /** Form fields of a measurement or build report upload, and of a photo upload (shared by page and server). */
-import { z } from 'zod';
+import { z } from '../zod';
 import { parseFrequency } from '$lib/rf/units/frequency';
-import { CSV_QUANTITIES, FREQUENCY_UNITS } from '$lib/rf/sweeps/types';
+import { CSV_QUANTITIES, FREQUENCY_UNITS, REFLECTION_PARAMETERS } from '$lib/rf/sweeps/types';
 
 export const INSTRUMENTS = [
 	{ value: 'vna', label: 'Vector network analyser' },
@@ -84,7 +84,8 @@ export const measurementFormSchema = z.object({
 	z0,
 	column: text(100).transform((v) => (v === '' ? undefined : v)),
 	quantity: optionalChoice(CSV_QUANTITIES, 'CSV quantity'),
-	freq_unit: optionalChoice(FREQUENCY_UNITS, 'frequency unit')
+	freq_unit: optionalChoice(FREQUENCY_UNITS, 'frequency unit'),
+	parameter: optionalChoice(REFLECTION_PARAMETERS, 'the reflection read from a 2-port file')
 });
 
 /** "What I built": only for a build report on someone else's revision. */
@@ -140,6 +141,7 @@ export const uploadFormSchema = z.object({
 	column: field,
 	quantity: field,
 	freq_unit: field,
+	parameter: field,
 	target_frequency: field,
 	deviations: field,
 	materials: field,

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { z } from '../zod';
 import { FAMILY_VALUES, POLARIZATION_VALUES, DESIGN_LIMITS } from './design';
 
 /** The "new design" form: the design's identity plus the frequency its first draft starts at. */

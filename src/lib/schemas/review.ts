@@ -1,5 +1,5 @@
 /** Form schemas for peer review: verdicts, anchored comments, compare queries. */
-import { z } from 'zod';
+import { z } from '../zod';
 
 const VERDICT_VALUES = ['approve', 'revise', 'reject'] as const;
 export type VerdictValue = (typeof VERDICT_VALUES)[number];

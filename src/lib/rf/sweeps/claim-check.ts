@@ -1,5 +1,6 @@
 import { downsampleMinMax } from './downsample';
-import type { Sweep } from './types';
+import type { Sweep, SweepWarning } from './types';
+import { aboveUnity } from './warnings';
 import {
 	findMinimumVswr,
 	fractionalBandwidth,
@@ -107,6 +108,8 @@ export interface AnalyzeResult {
 	rl_at_design_db: number | null;
 	claim?: ClaimResult;
 	phase_known: boolean;
+	/** What the reader changed or noticed (conversions, the parameter used) and points above |S11| = 1. */
+	warnings: SweepWarning[];
 	series: {
 		f_hz: number[];
 		vswr: (number | null)[];
@@ -120,16 +123,27 @@ const SERIES_MAX_POINTS = 2000;
 
 const finite = (x: number | null): number | null => (x !== null && Number.isFinite(x) ? x : null);
 
+function pick(values: Float64Array, keep: Uint32Array): Float64Array {
+	const out = new Float64Array(keep.length);
+	for (let k = 0; k < keep.length; k++) out[k] = values[keep[k]];
+	return out;
+}
+
 /**
  * Sweep metrics, claim check and a display series of at most 2000 points that keeps the VSWR
  * minimum. The minimum is parabolically interpolated (see findMinimumVswr); return loss at the
- * design frequency follows from the interpolated VSWR there. Throws RangeError for a band with
- * band_lo_hz ≥ band_hi_hz or only one edge: validate user input with parseAnalyzeQuery first.
+ * design frequency follows from the interpolated VSWR there. Points above |S11| = 1 stay in the
+ * series (VSWR null: off the scale) but not in the metrics, which would otherwise break a band
+ * at a glitch. Throws RangeError for a band with band_lo_hz ≥ band_hi_hz or only one edge:
+ * validate user input with parseAnalyzeQuery first.
  */
 export function analyzeSweep(sweep: Sweep, options: AnalyzeOptions = {}): AnalyzeResult {
-	const f = sweep.f_hz;
-	const n = f.length;
-	const vswr = vswrSeries(sweep);
+	const n = sweep.f_hz.length;
+	const vswrAll = vswrSeries(sweep);
+	const over = aboveUnity(sweep);
+	const keep = over.keep && over.keep.length > 0 ? over.keep : null;
+	const f = keep ? pick(sweep.f_hz, keep) : sweep.f_hz;
+	const vswr = keep ? pick(vswrAll, keep) : vswrAll;
 	const min = findMinimumVswr(f, vswr);
 	const b2 = vswrBands(f, vswr, 2);
 	const pairs = (bands: VswrBand[]) => bands.map((b): [number, number] => [b.lo_hz, b.hi_hz]);
@@ -137,8 +151,8 @@ export function analyzeSweep(sweep: Sweep, options: AnalyzeOptions = {}): Analyz
 		options.design_hz === undefined ? null : interpolateVswr(f, vswr, options.design_hz);
 	const result: AnalyzeResult = {
 		points: n,
-		f_start_hz: f[0],
-		f_stop_hz: f[n - 1],
+		f_start_hz: sweep.f_hz[0],
+		f_stop_hz: sweep.f_hz[n - 1],
 		z0: sweep.z0,
 		min_vswr: finite(min.vswr),
 		f_min_vswr_hz: min.f_hz,
@@ -148,6 +162,7 @@ export function analyzeSweep(sweep: Sweep, options: AnalyzeOptions = {}): Analyz
 		vswr_at_design: finite(design),
 		rl_at_design_db: design === null ? null : finite(returnLossDb(magnitudeFromVswr(design))),
 		phase_known: sweep.phase_known,
+		warnings: [...(sweep.warnings ?? []), ...(over.warning ? [over.warning] : [])],
 		series: { f_hz: [], vswr: [], rl_db: [], re: [], im: [] }
 	};
 	const { band_lo_hz: lo, band_hi_hz: hi } = options;
@@ -163,9 +178,9 @@ export function analyzeSweep(sweep: Sweep, options: AnalyzeOptions = {}): Analyz
 		result.claim = { ...claim, worst_vswr_in_band: finite(claim.worst_vswr_in_band) };
 	}
 	const s = result.series;
-	for (const i of downsampleMinMax(vswr, SERIES_MAX_POINTS)) {
-		s.f_hz.push(f[i]);
-		s.vswr.push(finite(vswr[i]));
+	for (const i of downsampleMinMax(vswrAll, SERIES_MAX_POINTS)) {
+		s.f_hz.push(sweep.f_hz[i]);
+		s.vswr.push(finite(vswrAll[i]));
 		s.rl_db.push(finite(returnLossDb(Math.hypot(sweep.re[i], sweep.im[i]))));
 		s.re.push(sweep.re[i]);
 		s.im.push(sweep.im[i]);

@@ -152,6 +152,22 @@ describe('CSV sweeps: bad input is located', () => {
 		});
 	});
 
+	it('impedance columns: R = −Z0 with X = 0 is located; negative R at most points is refused', () => {
+		// [calc] Γ = (Z − Z0)/(Z + Z0) is infinite at Z = −Z0 (Pozar 4th ed. §2.3)
+		expect(err('Frequency (MHz),R,X\n1,50,0\n2,-50,0\n3,50,0\n')).toMatchObject({
+			code: 'not_passive',
+			line: 3,
+			column: 3
+		});
+		// R = −25 Ω: Γ = −75/25 = −3 [calc]
+		const e = err('Frequency (MHz),Resistance (ohm),Reactance (ohm)\n1,-25,0\n2,-25,0\n3,50,0\n');
+		expect(e).toMatchObject({ code: 'not_passive', line: 2 });
+		expect(e.message).toMatch(/resistance is negative at most points/);
+		// Re(Z), Im(Z) name impedance too; Re(S11), Im(S11) do not
+		const z = ok('Frequency (MHz),Re(Z),Im(Z)\n1,150,0\n');
+		expect(z.re[0]).toBeCloseTo(0.5, 12); // [calc] (150 − 50)/(150 + 50)
+	});
+
 	it('VSWR below 1, negative return loss and positive S11 dB are refused with a hint', () => {
 		expect(err('Frequency (MHz),VSWR\n2400,0.9\n')).toMatchObject({
 			code: 'bad_value',

@@ -1,30 +1,31 @@
-import { HZ_PER_UNIT, MAX_SWEEP_FREQUENCY_HZ } from '../units/frequency';
-import { FREQUENCY_UNITS } from './types';
-import type { CsvQuantity, ParseSweepOptions, SweepParseResult } from './types';
+import { MAX_SWEEP_FREQUENCY_HZ } from '../units/frequency';
+import { gammaFromImpedance } from './smith';
+import { UNIT_MULT } from './touchstone-options';
 import {
 	FREQUENCY_RANGE,
 	MAX_SWEEP_POINTS,
-	PASSIVE_TOLERANCE,
 	decimalNumber,
 	failAt,
 	keepComment
 } from './touchstone';
+import { PASSIVE_TOLERANCE, newTally, note, notPassiveMessage, tally } from './warnings';
+import { FREQUENCY_UNITS } from './types';
+import type { CsvQuantity, ParseSweepOptions, SweepParseResult } from './types';
 
 /**
  * CSV sweep reader: a header naming the frequency column with its unit ("Frequency (MHz)",
  * "freq_hz", "f [GHz]") and the value columns. Delimiter (comma, semicolon, tab) is taken from
- * the header; with semicolons or tabs a comma inside a number is a decimal comma.
+ * the header; with semicolons or tabs a comma inside a number is a decimal comma. Resistance
+ * and reactance columns in ohms (an antenna analyser's R and X) are converted to Γ for z0.
  */
 
-type Role = CsvQuantity | 're' | 'im' | 'angle' | 'db?' | 's11?' | 'unknown';
+type Role = CsvQuantity | 're' | 'im' | 'angle' | 'db?' | 's11?' | 'z_re' | 'z_im' | 'unknown';
 type Reading =
 	| { kind: 'scalar'; col: number; quantity: CsvQuantity }
 	| { kind: 'ri'; a: number; b: number }
+	| { kind: 'z'; a: number; b: number }
 	| { kind: 'polar'; a: number; b: number; db: boolean; radians: boolean };
 
-const UNIT_MULT: Record<string, number> = Object.fromEntries(
-	FREQUENCY_UNITS.map((u) => [u.toLowerCase(), HZ_PER_UNIT[u]])
-);
 const QUANTITY_TEXT: Record<CsvQuantity, string> = {
 	vswr: 'VSWR',
 	rl_db: 'return loss in dB (positive)',
@@ -88,6 +89,9 @@ function role(header: string): Role {
 	const has = (...xs: string[]) => xs.some((x) => w.has(x));
 	if (has('vswr', 'swr')) return 'vswr';
 	if ((w.has('return') && w.has('loss')) || w.has('rl')) return 'rl_db';
+	const ohms = has('z', 'zin', 'ohm', 'ohms', 'impedance');
+	if (has('r', 'rs', 'resistance') || (ohms && has('re', 'real'))) return 'z_re';
+	if (has('x', 'xs', 'reactance') || (ohms && has('im', 'imag', 'imaginary'))) return 'z_im';
 	if (has('re', 'real')) return 're';
 	if (has('im', 'imag', 'imaginary')) return 'im';
 	if (has('phase', 'angle', 'ang', 'arg', 'deg', 'degrees', 'rad')) return 'angle';
@@ -175,6 +179,9 @@ function choose(
 	const re = find('re');
 	const im = find('im');
 	if (re >= 0 && im >= 0) return { kind: 'ri', a: re, b: im };
+	const zr = find('z_re');
+	const zi = find('z_im');
+	if (zr >= 0 && zi >= 0) return { kind: 'z', a: zr, b: zi };
 	const angle = find('angle');
 	const mag = find('s11_mag');
 	const db = find('s11_db');
@@ -293,17 +300,16 @@ export function parseCsvSweep(text: string, opts: ParseSweepOptions = {}): Sweep
 		);
 	}
 	if (isResult(reading)) return reading;
-	return readRows(
-		lines,
-		hasHeader ? h + 1 : h,
+	return readRows(lines, hasHeader ? h + 1 : h, {
 		delim,
 		num,
 		freqCol,
 		mult,
-		reading,
+		rd: reading,
 		comments,
-		opts.z0 ?? 50
-	);
+		z0: opts.z0 ?? 50,
+		headers: headFields.map((fl) => fl.text)
+	});
 }
 
 function askUnit(header: string, line: number): SweepParseResult {
@@ -316,21 +322,25 @@ function askUnit(header: string, line: number): SweepParseResult {
 	);
 }
 
-function readRows(
-	lines: string[],
-	from: number,
-	delim: string,
-	num: (s: string) => number,
-	freqCol: number,
-	mult: number,
-	rd: Reading,
-	comments: string[],
-	z0: number
-): SweepParseResult {
+interface Layout {
+	delim: string;
+	num: (s: string) => number;
+	freqCol: number;
+	mult: number;
+	rd: Reading;
+	comments: string[];
+	z0: number;
+	headers: string[];
+}
+
+function readRows(lines: string[], from: number, L: Layout): SweepParseResult {
+	const { delim, num, freqCol, mult, rd, comments, z0 } = L;
 	const cap = Math.min(lines.length, MAX_SWEEP_POINTS);
 	const f = new Float64Array(cap);
 	const re = new Float64Array(cap);
 	const im = new Float64Array(cap);
+	const raw = new Float64Array(cap);
+	const far = newTally();
 	const cols = rd.kind === 'scalar' ? [freqCol, rd.col] : [freqCol, rd.a, rd.b];
 	const need = Math.max(...cols) + 1;
 	let n = 0;
@@ -386,21 +396,36 @@ function readRows(
 		}
 		prev = v[0];
 		const vcol = fields[cols[1]].col;
-		const g = gamma(rd, v[1], v[2]);
+		const g = gamma(rd, v[1], v[2], z0);
 		if (!Array.isArray(g)) return failAt(g.code, g.message, lineNo, vcol);
+		tally(far, g[0] * g[0] + g[1] * g[1], lineNo, vcol);
 		f[n] = v[0] * mult;
 		re[n] = g[0];
 		im[n] = g[1];
+		raw[n] = v[1];
 		n++;
 	}
 	if (n === 0) return failAt('no_data', 'the file has no data rows');
+	const refused = notPassiveMessage(far, n, () => csvHint(rd, raw, n));
+	if (refused) return failAt('not_passive', refused, far.line, far.column);
 	const used =
 		rd.kind === 'scalar'
 			? QUANTITY_TEXT[rd.quantity]
 			: rd.kind === 'ri'
 				? 'real/imaginary S11'
-				: 'S11 magnitude/angle';
+				: rd.kind === 'z'
+					? 'resistance and reactance in ohms'
+					: 'S11 magnitude/angle';
 	comments.push(`csv: values read as ${used}`);
+	const warnings =
+		rd.kind === 'z'
+			? [
+					note(
+						'converted_from_z',
+						`CSV impedance: the columns '${L.headers[rd.a]}' and '${L.headers[rd.b]}' were read as R and X in ohms and converted to S11 for Z0 = ${z0} Ω: Γ = (Z − Z0)/(Z + Z0).`
+					)
+				]
+			: [];
 	return {
 		ok: true,
 		sweep: {
@@ -410,52 +435,83 @@ function readRows(
 			re: re.slice(0, n),
 			im: im.slice(0, n),
 			comments,
-			phase_known: rd.kind !== 'scalar'
+			phase_known: rd.kind !== 'scalar',
+			ports: 1,
+			warnings
 		}
 	};
 }
 
-const NOT_PASSIVE = '|S11| > 1: not valid data for a passive antenna';
-
 type Refusal = { code: 'bad_value' | 'not_passive'; message: string };
 const negative = (): Refusal => ({ code: 'bad_value', message: 'magnitude cannot be negative' });
-const notPassive = (hint = ''): Refusal => ({ code: 'not_passive', message: NOT_PASSIVE + hint });
+const infinite = (): Refusal => ({
+	code: 'not_passive',
+	message: 'this value gives an infinite |S11|, which no passive load has'
+});
 
-function gamma(rd: Reading, a: number, b: number): [number, number] | Refusal {
-	let re: number;
-	let im = 0;
-	if (rd.kind === 'ri') {
-		re = a;
-		im = b;
-	} else if (rd.kind === 'polar') {
+/** Γ of one row, or why the row cannot be read. Values above |Γ| = 1 are kept (see sweep-warnings). */
+function gamma(rd: Reading, a: number, b: number, z0: number): [number, number] | Refusal {
+	if (rd.kind === 'ri') return [a, b];
+	if (rd.kind === 'z') {
+		const g = gammaFromImpedance(a / z0, b / z0);
+		if (!(Number.isFinite(g.re) && Number.isFinite(g.im))) {
+			return {
+				code: 'not_passive',
+				message: `R = −${z0} Ω with X = 0 gives an infinite reflection`
+			};
+		}
+		return [g.re, g.im];
+	}
+	if (rd.kind === 'polar') {
 		const mag = rd.db ? Math.pow(10, a / 20) : a;
 		if (mag < 0) return negative();
+		if (!Number.isFinite(mag)) return infinite();
 		const th = rd.radians ? b : (b * Math.PI) / 180;
-		re = mag * Math.cos(th);
-		im = mag * Math.sin(th);
-	} else {
-		switch (rd.quantity) {
-			case 'vswr':
-				if (!(a >= 1)) return { code: 'bad_value', message: 'VSWR must be at least 1' };
-				re = (a - 1) / (a + 1);
-				break;
-			case 'rl_db':
-				if (a < -PASSIVE_TOLERANCE)
-					return notPassive(
-						' (return loss is positive by definition; for S11 in dB pass quantity s11_db)'
-					);
-				re = Math.pow(10, -a / 20);
-				break;
-			case 's11_db':
-				if (a > PASSIVE_TOLERANCE)
-					return notPassive(' (S11 in dB is negative; for return loss pass quantity rl_db)');
-				re = Math.pow(10, a / 20);
-				break;
-			default:
-				if (a < 0) return negative();
-				re = a;
-		}
+		return [mag * Math.cos(th), mag * Math.sin(th)];
 	}
-	if (!(re * re + im * im <= (1 + PASSIVE_TOLERANCE) ** 2)) return notPassive();
-	return [re, im];
+	let re: number;
+	switch (rd.quantity) {
+		case 'vswr':
+			if (!(a >= 1)) return { code: 'bad_value', message: 'VSWR must be at least 1' };
+			re = (a - 1) / (a + 1);
+			break;
+		case 'rl_db':
+			re = Math.pow(10, -a / 20);
+			break;
+		case 's11_db':
+			re = Math.pow(10, a / 20);
+			break;
+		default:
+			if (a < 0) return negative();
+			re = a;
+	}
+	if (!Number.isFinite(re)) return infinite();
+	return [re, 0];
+}
+
+/** The likeliest reason a CSV column is not a passive reflection, as one sentence, or ''. */
+function csvHint(rd: Reading, raw: Float64Array, n: number): string {
+	let positive = 0;
+	let negative = 0;
+	for (let i = 0; i < n; i++) {
+		if (raw[i] > PASSIVE_TOLERANCE) positive++;
+		else if (raw[i] < -PASSIVE_TOLERANCE) negative++;
+	}
+	const most = (k: number) => k > n / 2;
+	if (rd.kind === 'scalar' && rd.quantity === 's11_db' && most(positive)) {
+		return 'S11 in dB is negative: these positive values look like return loss (for return loss pass quantity rl_db).';
+	}
+	if (rd.kind === 'scalar' && rd.quantity === 'rl_db' && most(negative)) {
+		return 'Return loss is positive by definition: these negative values look like S11 in dB (for S11 in dB pass quantity s11_db).';
+	}
+	if (rd.kind === 'scalar' && rd.quantity === 's11_mag') {
+		return 'A linear |S11| lies between 0 and 1: values above 1 look like VSWR or dB figures (pass quantity vswr, rl_db or s11_db).';
+	}
+	if (rd.kind === 'z' && most(negative)) {
+		return 'The resistance is negative at most points, which no passive load has: check the R column.';
+	}
+	if (rd.kind === 'polar' && rd.db && most(positive)) {
+		return 'The dB values are positive, as in a gain measurement or a return loss written without its minus sign.';
+	}
+	return '';
 }

@@ -1,6 +1,6 @@
 import Complex from 'complex.js';
 import { describe, expect, it } from 'vitest';
-import { rlcSweep } from '../../testing/sweeps/rlc';
+import { rlcEdges, rlcSweep } from '../../testing/sweeps/rlc';
 import type { Sweep } from './types';
 import {
 	findMinimumVswr,
@@ -105,18 +105,12 @@ describe('bands of an analytic series-RLC resonator (R = Z0 = 50 Ω)', () => {
 	const f0 = 100e6;
 	const q = 10;
 	const r = 50;
-	const w0 = 2 * Math.PI * f0;
-	const l = (q * r) / w0;
-	const c = 1 / (w0 * w0 * l);
-	const edges = (xe: number) => {
-		const root = Math.sqrt(xe * xe + (4 * l) / c);
-		return [(-xe + root) / (2 * l) / (2 * Math.PI), (xe + root) / (2 * l) / (2 * Math.PI)];
-	};
+	const edges = (vswr: number) => rlcEdges(f0, q, r, vswr);
 	const sweep = rlcSweep(f0, q, r, 50, 80e6, 120e6, 20001);
 	const v = vswrSeries(sweep);
 
 	it('VSWR ≤ 2 edges match the closed form', () => {
-		const [lo, hi] = edges(r / Math.SQRT2);
+		const [lo, hi] = edges(2);
 		const bands = vswrBands(sweep.f_hz, v, 2);
 		expect(bands.length).toBe(1);
 		// grid step 2 kHz; linear interpolation of the smooth VSWR curve is good to well under 1 Hz
@@ -126,21 +120,21 @@ describe('bands of an analytic series-RLC resonator (R = Z0 = 50 Ω)', () => {
 	});
 
 	it('VSWR ≤ 1.5 edges match the closed form', () => {
-		const [lo, hi] = edges(r / Math.sqrt(6));
+		const [lo, hi] = edges(1.5);
 		const [band] = vswrBands(sweep.f_hz, v, 1.5);
 		expect(Math.abs(band.lo_hz - lo)).toBeLessThan(5);
 		expect(Math.abs(band.hi_hz - hi)).toBeLessThan(5);
 	});
 
 	it('fractional bandwidth = (hi − lo)/centre of the closed-form edges', () => {
-		const [lo, hi] = edges(r / Math.SQRT2);
+		const [lo, hi] = edges(2);
 		const min = findMinimumVswr(sweep.f_hz, v);
 		const fbw = fractionalBandwidth(vswrBands(sweep.f_hz, v, 2), sweep.f_hz[min.index]);
 		expect(fbw).toBeCloseTo((hi - lo) / ((hi + lo) / 2), 6);
 	});
 
 	it('a band touching the sweep end reports the sweep end and a flag', () => {
-		const [lo] = edges(r / Math.SQRT2);
+		const [lo] = edges(2);
 		const part = rlcSweep(f0, q, r, 50, 99e6, 130e6, 3001);
 		const [band] = vswrBands(part.f_hz, vswrSeries(part), 2);
 		expect(band.lo_hz).toBe(99e6);

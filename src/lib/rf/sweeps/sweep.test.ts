@@ -134,9 +134,11 @@ describe('analyzeSweep result shape', () => {
 				'rl_at_design_db',
 				'claim',
 				'phase_known',
+				'warnings',
 				'series'
 			].sort()
 		);
+		expect(r.warnings).toEqual([]);
 		expect(Object.keys(r.claim!).sort()).toEqual([
 			'miss_hi_hz',
 			'miss_lo_hz',
@@ -179,7 +181,7 @@ describe('parseAnalyzeQuery', () => {
 	it('accepts a full, valid query', () => {
 		expect(
 			q(
-				'format=csv&z0=75&design_hz=2.45e9&band_lo_hz=2.4e9&band_hi_hz=2.5e9&vswr_max=2&quantity=rl_db&column=dB&freq_unit=mhz'
+				'format=csv&z0=75&design_hz=2.45e9&band_lo_hz=2.4e9&band_hi_hz=2.5e9&vswr_max=2&quantity=rl_db&column=dB&freq_unit=mhz&parameter=S22'
 			)
 		).toEqual({
 			ok: true,
@@ -192,7 +194,8 @@ describe('parseAnalyzeQuery', () => {
 				vswr_max: 2,
 				column: 'dB',
 				quantity: 'rl_db',
-				freq_unit: 'MHz'
+				freq_unit: 'MHz',
+				parameter: 's22'
 			}
 		});
 		expect(q('')).toEqual({ ok: true, value: { format: 'auto' } });
@@ -213,7 +216,9 @@ describe('parseAnalyzeQuery', () => {
 			['vswr_max=2', 'vswr_max'],
 			['quantity=power', 'quantity'],
 			['freq_unit=THz', 'freq_unit'],
-			['z0=50&z0=75', 'z0']
+			['z0=50&z0=75', 'z0'],
+			['parameter=s21', 'parameter'],
+			['parameter=', 'parameter']
 		];
 		for (const [query, field] of cases) {
 			const r = q(query);

@@ -4,17 +4,18 @@ import type {
 	CsvQuantity,
 	FrequencyUnit,
 	ParseSweepOptions,
+	ReflectionParameter,
 	SweepErrorCode,
 	SweepFormat,
 	SweepParseError,
 	SweepParseResult
 } from './types';
-import { CSV_QUANTITIES, FREQUENCY_UNITS } from './types';
+import { CSV_QUANTITIES, FREQUENCY_UNITS, REFLECTION_PARAMETERS } from './types';
 
 // NUL and other C0 controls (tab, LF, VT, FF, CR allowed) or U+FFFD left by decoding non-UTF-8 bytes.
 const NON_TEXT = /[\u0000-\u0008\u000e-\u001f\ufffd]/;
 
-/** Parses a Touchstone 1-port or CSV sweep. Never throws: every failure is a located SweepParseError. */
+/** Parses a Touchstone (1-port, or one reflection of a 2-port) or CSV sweep. Never throws: every failure is a located SweepParseError. */
 export function parseSweep(text: string, options: ParseSweepOptions = {}): SweepParseResult {
 	if (typeof text !== 'string') return bad('bad_argument', 'the sweep must be given as text');
 	const format = options.format ?? 'auto';
@@ -24,6 +25,10 @@ export function parseSweep(text: string, options: ParseSweepOptions = {}): Sweep
 	const z0 = options.z0;
 	if (z0 !== undefined && !(Number.isFinite(z0) && z0 > 0 && z0 <= 10000)) {
 		return bad('bad_argument', 'z0 must be a number above 0 and at most 10000 ohms', 'z0');
+	}
+	const parameter = options.parameter ?? 's11';
+	if (parameter !== 's11' && parameter !== 's22') {
+		return bad('bad_argument', 'parameter must be s11 or s22', 'parameter');
 	}
 	const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
 	if (body.trim() === '') return bad('empty', 'the file is empty');
@@ -43,7 +48,17 @@ export function parseSweep(text: string, options: ParseSweepOptions = {}): Sweep
 		};
 	}
 	const kind = format === 'auto' ? sniffFormat(body) : format;
-	return kind === 'touchstone' ? parseTouchstone(body, { z0 }) : parseCsvSweep(body, options);
+	const r =
+		kind === 'touchstone' ? parseTouchstone(body, { z0, parameter }) : parseCsvSweep(body, options);
+	if (r.ok && parameter === 's22' && r.sweep.ports !== 2) {
+		const what = kind === 'csv' ? 'a CSV sweep holds' : 'this is a 1-port file: it holds';
+		return bad(
+			'no_such_parameter',
+			`S22 was asked for, but ${what} one reflection (S11) only: choose S11`,
+			'parameter'
+		);
+	}
+	return r;
 }
 
 const OPTION_LIKE = /^#\s*((hz|khz|mhz|ghz|[syzhg]|ma|db|ri|r|[\d.e+-]+)(\s+|$))*$/i;
@@ -86,6 +101,7 @@ export interface AnalyzeQuery {
 	column?: string;
 	quantity?: CsvQuantity;
 	freq_unit?: FrequencyUnit;
+	parameter?: ReflectionParameter;
 }
 
 type AnalyzeQueryField = keyof AnalyzeQuery;
@@ -103,7 +119,8 @@ const QUERY_FIELDS: readonly AnalyzeQueryField[] = [
 	'vswr_max',
 	'column',
 	'quantity',
-	'freq_unit'
+	'freq_unit',
+	'parameter'
 ];
 
 /** Validates the query of a sweep-analysis request; each failure names its field. */
@@ -171,6 +188,16 @@ export function parseAnalyzeQuery(params: URLSearchParams): AnalyzeQueryResult {
 		const u = FREQUENCY_UNITS.find((x) => x.toLowerCase() === unit.toLowerCase());
 		if (!u) return fail('freq_unit', `freq_unit must be one of ${FREQUENCY_UNITS.join(', ')}`);
 		value.freq_unit = u;
+	}
+	const parameter = params.get('parameter');
+	if (parameter !== null) {
+		const p = REFLECTION_PARAMETERS.find((x) => x === parameter.trim().toLowerCase());
+		if (!p)
+			return fail(
+				'parameter',
+				'parameter must be s11 or s22 (the reflection read from a 2-port file)'
+			);
+		value.parameter = p;
 	}
 	return { ok: true, value };
 }

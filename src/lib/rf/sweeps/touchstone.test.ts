@@ -110,8 +110,8 @@ describe('Touchstone 1-port, version 1', () => {
 		expect(e.message).toMatch(/option line after data/);
 	});
 
-	it('refuses Y and Z (not supported) and H, G (2-port only) parameters', () => {
-		expect(err('# MHz Z MA R 50\n1 0.5 0\n')).toMatchObject({
+	it('refuses Y (not read) and H, G (2-port only) parameters at the letter', () => {
+		expect(err('# MHz Y RI R 50\n1 0.5 0\n')).toMatchObject({
 			code: 'unsupported_parameter',
 			line: 1,
 			column: 7
@@ -121,17 +121,28 @@ describe('Touchstone 1-port, version 1', () => {
 		expect(err('# MHz G MA R 50\n1 0.5 0\n').code).toBe('unsupported_parameter');
 	});
 
-	it('refuses unknown option fields, a missing R value and a field given twice', () => {
+	it('refuses unknown option fields, a bad R value and a field given twice', () => {
 		expect(err('# MHz S XY R 50\n1 0 0\n')).toMatchObject({ code: 'bad_option', column: 9 });
-		expect(err('# MHz S MA R\n1 0 0\n').code).toBe('bad_option');
-		expect(err('# MHz S MA R -5\n1 0 0\n').code).toBe('bad_option');
+		expect(err('# MHz S MA R -5\n1 0 0\n')).toMatchObject({ code: 'bad_option', column: 14 });
+		expect(err('# MHz S MA R abc\n1 0 0\n')).toMatchObject({ code: 'bad_option', column: 14 });
+		expect(err('# MHz S MA R 0\n1 0 0\n').message).toMatch(/positive reference impedance/);
 		expect(err('# MHz GHz S MA\n1 0 0\n').message).toMatch(/twice/);
+		expect(err('# MHz S MA R 50 R 75\n1 0 0\n').message).toMatch(
+			/reference impedance is given twice/
+		);
+		expect(err('# MHz S MA DB\n1 0 0\n')).toMatchObject({ code: 'bad_option', column: 12 });
 	});
 
-	it('TS 1.1 1-port data line: a 2-port line of 9 numbers gets the 1-port-only message', () => {
-		const e = err(fixture('two-port.s2p'));
-		expect(e).toMatchObject({ code: 'two_port', line: 3 });
-		expect(e.message).toMatch(/only 1-port Touchstone files are supported/);
+	it('a line of 7 numbers (3-port) or a continuation line of 8 (4 ports and more) is refused', () => {
+		expect(err('# GHz S MA R 50\n1 0.5 0 0.1 0 0.1 0\n')).toMatchObject({
+			code: 'too_many_ports',
+			line: 2,
+			column: 1
+		});
+		const four = '# GHz S MA R 50\n1 0.5 0 0.1 0 0.1 0 0.1 0\n 0.1 0 0.5 0 0.1 0 0.1 0\n';
+		const e = err(four);
+		expect(e).toMatchObject({ code: 'too_many_ports', line: 3, column: 2 });
+		expect(e.message).toMatch(/4 or more ports/);
 	});
 
 	it('data lines with the wrong count of numbers are located', () => {
@@ -143,18 +154,31 @@ describe('Touchstone 1-port, version 1', () => {
 		expect(err('# MHz S MA R 50\n1 0.5 0 7\n').message).toMatch(/found 4/);
 	});
 
-	it('MA magnitude > 1 is invalid passive data, located at the magnitude', () => {
-		const e = err('# MHz S MA R 50\n1 0.5 0\n2 1.02 10\n');
+	it('most points above |S11| = 1.05 is refused as not passive, located at the first such point', () => {
+		const e = err('# MHz S MA R 50\n1 0.5 0\n2 1.2 10\n3 1.3 20\n');
 		expect(e).toMatchObject({ code: 'not_passive', line: 3, column: 3 });
+		expect(e.message).toMatch(/not a passive one-port/);
+		expect(e.message).toMatch(/at 2 of 3 points \(largest 1\.300\)/);
+		expect(e.message).toMatch(/gain measurement/);
+		// one such point of three loads (see sweep-quirks.test.ts for the warning)
+		expect(ok('# MHz S MA R 50\n1 0.5 0\n2 1.2 10\n3 0.5 20\n').re[1]).toBeCloseTo(
+			1.2 * Math.cos(Math.PI / 18),
+			12
+		);
 	});
 
-	it('|Γ| > 1 from DB and RI is refused too; |Γ| = 1 is accepted', () => {
+	it('|Γ| > 1.05 from DB and RI is refused too; |Γ| = 1 is accepted', () => {
+		// [calc] 0.5 dB → |S11| = 10^(0.5/20) = 1.0593
 		expect(err('# MHz S DB R 50\n1 0.5 0\n').code).toBe('not_passive');
 		expect(err('# MHz S RI R 50\n1 0.8 0.7\n').code).toBe('not_passive');
 		expect(ok('# MHz S RI R 50\n1 0.6 0.8\n').re[0]).toBe(0.6); // 0.6² + 0.8² = 1 [calc]
 		expect(err('# MHz S MA R 50\n1 -0.2 0\n').code).toBe('bad_value');
-		// 10^(1e300/20) overflows to Infinity: still refused, never stored as NaN
-		expect(err('# MHz S DB R 50\n1 1e300 90\n').code).toBe('not_passive');
+		// 10^(1e300/20) overflows to Infinity: refused at that line, never stored as NaN
+		expect(err('# MHz S DB R 50\n1 -3 0\n2 1e300 90\n3 -3 0\n')).toMatchObject({
+			code: 'not_passive',
+			line: 3,
+			column: 3
+		});
 	});
 
 	it('TS 1.1 frequencies increase: decreasing and duplicate frequencies are located', () => {
@@ -248,12 +272,33 @@ describe('Touchstone 1-port, version 2 keywords', () => {
 		expect(e).toMatchObject({ code: 'count_mismatch', line: 4 });
 	});
 
-	it('TS 2.0 [Number of Ports] must be 1 here', () => {
+	it('TS 2.0 [Number of Ports] above 2 is refused at the keyword', () => {
 		const e = err(
-			v2('[Number of Ports] 2\n[Number of Frequencies] 1\n[Network Data]\n1 0.5 0\n[End]\n')
+			v2('[Number of Ports] 4\n[Number of Frequencies] 1\n[Network Data]\n1 0.5 0\n[End]\n')
 		);
-		expect(e).toMatchObject({ code: 'two_port', line: 3 });
-		expect(e.message).toMatch(/only 1-port Touchstone files are supported/);
+		expect(e).toMatchObject({ code: 'too_many_ports', line: 3, column: 19 });
+		expect(e.message).toMatch(/this file has 4 ports: only 1-port and 2-port files are read/);
+	});
+
+	it('TS 2.0 a frequency may continue on the next line; a short or long one is located', () => {
+		const head = '[Number of Ports] 1\n[Number of Frequencies] 2\n[Network Data]\n';
+		const s = ok(v2(`${head}1 0.5\n 90\n2 0.4 0\n[End]\n`));
+		expect(s.im[0]).toBeCloseTo(0.5, 12); // MA 0.5 at 90° [calc]
+		expect(err(v2(`${head}1 0.5\n[End]\n`))).toMatchObject({ code: 'field_count', line: 6 });
+		expect(err(v2(`${head}1 0.5 0 7\n2 0.4 0\n[End]\n`)).message).toMatch(/found 4/);
+	});
+
+	it('TS 2.0 [Reference] takes one value per port', () => {
+		const head = '[Number of Ports] 1\n[Reference] 50 75\n';
+		expect(
+			err(v2(`${head}[Number of Frequencies] 1\n[Network Data]\n1 0.5 0\n[End]\n`))
+		).toMatchObject({
+			code: 'bad_keyword',
+			line: 4
+		});
+		expect(err(v2('[Number of Ports] 1\n[Reference] x\n')).message).toMatch(
+			/one positive impedance per port/
+		);
 	});
 
 	it('TS 2.0 [Number of Ports] and [Number of Frequencies] come before [Network Data]', () => {

@@ -2,7 +2,7 @@
  * Validation of a POST /api/v1/evaluate body (zod 4). Returns the first problem with the field it
  * is in, written like `rows[3].kind`, and never throws for anything a client can send.
  */
-import { z } from 'zod';
+import { z } from '../../zod';
 import { CATALOGUE_IDS } from '../catalogues/stock';
 import { MAX_FORMULA_LENGTH, MAX_PARAMETERS, MAX_ROWS } from '../formulas/limits';
 import { MAX_FREQUENCY_HZ } from '../units/frequency';

@@ -1,5 +1,5 @@
 /** A revision's content as stored (notes and change note in their own columns, the rest as JSON). */
-import type { z } from 'zod';
+import type { z } from '$lib/zod';
 import type { RevisionContent } from '$lib/schemas/design';
 import type { Revision } from '../db/schema';
 import { DomainError } from '../http/errors';

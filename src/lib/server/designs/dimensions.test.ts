@@ -2,7 +2,12 @@ import { describe, expect, it } from 'vitest';
 import { createDesign, starterContent } from './designs';
 import { saveDraft, submitRevision } from './revisions';
 import { getRevisionById } from './lookups';
-import { tableForView, tableForViewJson } from './dimensions';
+import {
+	assertCompilable,
+	assertFormulasCompile,
+	tableForView,
+	tableForViewJson
+} from './dimensions';
 import type { ViewState } from '$lib/rf/units/view-state';
 import { member } from '../../testing/server-setup';
 
@@ -58,5 +63,32 @@ describe('tableForViewJson', () => {
 		const after = JSON.parse(tableForViewJson(getRevisionById(revisionId)!, view(2.45e9)));
 		// [calc] λ/2 = 2 × λ/4
 		expect(after.rows[0].value_mm).toBeCloseTo(2 * before.rows[0].value_mm, 9);
+	});
+});
+
+describe('assertFormulasCompile (design file import)', () => {
+	const withRows = (rows: { key: string; formula: string; kind: 'resonant' | 'structural' }[]) => ({
+		...starterContent(5.8e9),
+		rows: rows.map((r) => ({ ...r, label: r.key }))
+	});
+
+	it('names the first row the editor would mark, at its root rather than the rows that use it', () => {
+		const content = withRows([
+			{ key: 'side', formula: 'lambda / 4', kind: 'resonant' },
+			{ key: 'gap', formula: 'side * nowhere', kind: 'structural' },
+			{ key: 'twice', formula: 'gap * 2', kind: 'structural' }
+		]);
+		// The save check lets a draft keep it; the import check does not.
+		expect(() => assertCompilable(content)).not.toThrow();
+		expect(() => assertFormulasCompile(content)).toThrow(/^Row 2 "gap" \(rows\[1\]\): .*nowhere/);
+	});
+
+	it('refuses a dimension the editor refuses, and accepts a table that compiles', () => {
+		expect(() =>
+			assertFormulasCompile(withRows([{ key: 'bad', formula: '5.8 GHz', kind: 'resonant' }]))
+		).toThrow(/^Row 1 "bad" \(rows\[0\]\): a resonant row must give/);
+		expect(() =>
+			assertFormulasCompile(withRows([{ key: 'side', formula: 'lambda / 4', kind: 'resonant' }]))
+		).not.toThrow();
 	});
 });

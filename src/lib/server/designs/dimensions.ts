@@ -83,12 +83,46 @@ export function tableForViewJson(r: RevisionKey, view: ViewState): string {
 }
 
 /** Keys and sizes the engine refuses (unit names such as "mm", function names) are a 422 on that field. */
-export function assertCompilable(content: RevisionContent): void {
+export function assertCompilable(content: RevisionContent): CompiledTable {
 	try {
-		compileTable(toTableDefinition(content));
+		return compileTable(toTableDefinition(content));
 	} catch (e) {
 		if (e instanceof TableInputError)
 			throw new DomainError(422, `${e.field}: ${e.message}`, e.field);
 		throw e;
+	}
+}
+
+/**
+ * Stricter, for imported files: every parameter and formula must compile as the editor checks them
+ * (known names, right dimensions, earlier rows only). A draft may hold such errors while its author
+ * works; a file arrives finished. Names the first error at its root, not the rows that depend on it.
+ */
+export function assertFormulasCompile(content: RevisionContent): void {
+	const table = assertCompilable(content);
+	const parts = [
+		...table.parameters.map((p, i) => ({
+			what: 'Parameter',
+			i,
+			where: `parameters[${i}]`,
+			key: p.def.key,
+			error: p.error
+		})),
+		...table.rows.map((r, i) => ({
+			what: 'Row',
+			i,
+			where: `rows[${i}]`,
+			key: r.def.key,
+			error: r.error
+		}))
+	].filter((p) => p.error);
+	const root = parts.find((p) => !p.error!.message.startsWith('depends on ')) ?? parts[0];
+	if (root) {
+		const { what, i, where, key, error } = root;
+		throw new DomainError(
+			422,
+			`${what} ${i + 1} "${key}" (${where}): ${error!.message}. Nothing was imported.`,
+			where
+		);
 	}
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { z } from 'zod';
+import { z } from '$lib/zod';
 import { importDesignSchema } from '$lib/schemas/new-design';
 import { actionFailure, firstProblem, readForm } from './actions';
 import { DomainError } from './errors';

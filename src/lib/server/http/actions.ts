@@ -1,20 +1,39 @@
 /**
- * The one way a form action reads its post and says no: superforms with the form's zod schema,
- * and one mapping from an expected failure (a DomainError) to what the action returns.
+ * The one way a form action reads its post and says no: the body read once (a body that cannot be
+ * parsed is the sender's problem, never a 500), checked with superforms against the form's zod
+ * schema, and one mapping from an expected failure (a DomainError) to what the action returns.
  */
-import { fail } from '@sveltejs/kit';
+import { error, fail } from '@sveltejs/kit';
 import { message, setError, superValidate, type SuperValidated } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
-import type { z } from 'zod';
+import type { z } from '$lib/zod';
 import { DomainError } from './errors';
 
-/** A form post read and checked against its schema; `files` lets file fields through. */
-export function readForm<S extends z.ZodObject>(
+/** adapter-node's body limit errors the stream with a 413 (a SvelteKitError) before any field is read. */
+const statusOf = (e: unknown) => (e as { status?: unknown } | null)?.status;
+
+async function formBody(request: Request): Promise<FormData> {
+	try {
+		return await request.formData();
+	} catch (e) {
+		// Cut off, a wrong boundary, or more than BODY_SIZE_LIMIT.
+		if (statusOf(e) === 413) error(413, 'The form is larger than this server accepts.');
+		error(400, 'The form could not be read; send it again.');
+	}
+}
+
+/**
+ * A form post read and checked against its schema; `files` lets file fields through. A body that
+ * cannot be read ends the action with SvelteKit's error page: 400, or 413 past BODY_SIZE_LIMIT,
+ * each with a message (an upload answers those itself, see isHttpError in upload-action.ts).
+ */
+export async function readForm<S extends z.ZodObject>(
 	source: Request | FormData,
 	schema: S,
 	options: { files?: boolean } = {}
 ) {
-	return superValidate(source, zod4(schema), { allowFiles: options.files ?? false });
+	const data = source instanceof Request ? await formBody(source) : source;
+	return superValidate(data, zod4(schema), { allowFiles: options.files ?? false });
 }
 
 /** The first problem of a form that did not validate: its field and the schema's message. */

@@ -10,3 +10,5 @@ export function dataDir(): string {
 export function publicOrigin(): string {
 	return (env.ORIGIN || `http://localhost:${env.PORT || 3000}`).replace(/\/$/, '');
 }
+
+export const isProduction = () => env.NODE_ENV === 'production';

@@ -23,7 +23,7 @@ export function requireVerifiedMember(): SessionUser {
 	return user;
 }
 
-function hasRole(user: SessionUser | null, role: Role): boolean {
+export function hasRole(user: SessionUser | null, role: Role): boolean {
 	return !!user && user.emailVerified && RANK[user.role] >= RANK[role];
 }
 

@@ -35,6 +35,7 @@ const limiters = {
 	signIn: limiter(10, 60),
 	signUp: limiter(5, 30),
 	reset: limiter(5, 20),
+	verify: limiter(10, 60),
 	compute: limiter(240, 6000),
 	upload: limiter(20, 200),
 	write: limiter(60, 1200)

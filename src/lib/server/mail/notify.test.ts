@@ -1,4 +1,5 @@
-import { beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { mailSettled } from './send';
 import { eq } from 'drizzle-orm';
 import { createAccount } from '../accounts/accounts';
 import { toSessionUser, type SessionUser } from '../accounts/auth';
@@ -22,6 +23,9 @@ async function person(email: string, role: Role) {
 }
 
 const mails = (to: string) => db.select().from(mailQueue).where(eq(mailQueue.toAddress, to)).all();
+
+// Notices are sent in the background: let them finish before this file's database goes.
+afterAll(mailSettled);
 
 beforeAll(async () => {
 	author = await person('n-author@example.org', 'member');

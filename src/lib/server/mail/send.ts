@@ -5,10 +5,34 @@ import { building } from '$app/environment';
 import { db } from '../db';
 import { mailQueue } from '../db/schema';
 import { createMailer } from './index';
-import { dataDir } from '../http/config';
+import { dataDir, isProduction } from '../http/config';
 
 export const outboxDir = () => join(dataDir(), 'outbox');
 export const usesOutbox = () => !env.SMTP_URL;
+
+/** What an operator must know about mail: a production server without SMTP sends none. */
+export function mailWarnings(): string[] {
+	if (!usesOutbox() || !isProduction()) return [];
+	return [
+		'SMTP_URL is not set: no mail is delivered (sign-up confirmations, password resets); it is only written to the outbox folder.'
+	];
+}
+
+/** Says so loudly at start: nobody reads the outbox of a production server by accident. */
+export function warnAboutMail(log: (line: string) => void = console.warn): void {
+	const warnings = mailWarnings();
+	if (warnings.length === 0) return;
+	const rule = '!'.repeat(78);
+	log(
+		[
+			rule,
+			...warnings.map((w) => `!! ${w}`),
+			`!! Outbox: ${outboxDir()}`,
+			'!! Set SMTP_URL (see README, Configuration) to send mail.',
+			rule
+		].join('\n')
+	);
+}
 
 let mailer: ReturnType<typeof createMailer> | null = null;
 function getMailer() {
@@ -20,14 +44,9 @@ function getMailer() {
 	return mailer;
 }
 
-/** Account mail (verification, reset) is sent at once: the person is waiting for it. */
-export async function sendNow(to: string, subject: string, text: string): Promise<void> {
-	await getMailer().send({ to, subject, text });
-}
-
 const MAX_ATTEMPTS = 5;
 
-/** Notifications go through the queue table, written in the caller's transaction, sent after commit. */
+/** All mail goes through the queue table, written in the caller's transaction, sent right after commit. */
 export function queueMail(
 	msg: { to: string; subject: string; text: string },
 	tx: Pick<typeof db, 'insert'> = db
@@ -38,10 +57,30 @@ export function queueMail(
 	setTimeout(() => void deliverQueued(), 0);
 }
 
-let delivering = false;
-async function deliverQueued(now = Date.now()): Promise<number> {
-	if (delivering) return 0;
-	delivering = true;
+let delivering: Promise<number> | null = null;
+let requested = false;
+
+/** Sends what is due. A call during a run makes that run look again when it ends, so no mail waits for the worker. */
+function deliverQueued(): Promise<number> {
+	requested = true;
+	delivering ??= (async () => {
+		let sent = 0;
+		while (requested) {
+			requested = false;
+			sent += await deliverDue(Date.now());
+		}
+		return sent;
+	})().finally(() => (delivering = null));
+	return delivering;
+}
+
+/** Resolves once the deliveries queued so far have run (a test waits for it before its database goes). */
+export async function mailSettled(): Promise<void> {
+	await new Promise((resolve) => setTimeout(resolve, 0));
+	while (delivering) await delivering;
+}
+
+async function deliverDue(now: number): Promise<number> {
 	let sent = 0;
 	try {
 		const due = db
@@ -73,8 +112,9 @@ async function deliverQueued(now = Date.now()): Promise<number> {
 					.run();
 			}
 		}
-	} finally {
-		delivering = false;
+	} catch (e) {
+		// The queue itself could not be read or updated (the database is busy): the worker comes back.
+		console.error('mail queue: delivery stopped; the worker tries again shortly', e);
 	}
 	return sent;
 }

@@ -4,10 +4,15 @@ import { eq } from 'drizzle-orm';
 import { db } from '../db';
 import { auditLog, measurements, revisions } from '../db/schema';
 import type { SessionUser } from '../accounts/auth';
-import { getRevisionById } from '../designs/lookups';
-import { addMeasurement, analyzeBytes, getMeasurement, MAX_SWEEP_BYTES } from './measurements';
+import { getDesignBySlug, getRevisionById } from '../designs/lookups';
+import {
+	addMeasurement,
+	analyzeBytes,
+	getMeasurement,
+	measurementSeries,
+	MAX_SWEEP_BYTES
+} from './measurements';
 import { measurementsPanelData } from './panel';
-import { getDesignBySlug } from '../designs/lookups';
 import { UploadError } from './uploads';
 import { jpegWithGps, resonanceRows, solidPng, touchstone } from '../../testing/upload-fixtures';
 import { designAt, member, rowCounts, tempStore, type TempStore } from '../../testing/server-setup';
@@ -225,8 +230,32 @@ describe('bad sweep files', () => {
 		await expectRefused(() => upload(junk), 422, /not a text file/, 2);
 	});
 
-	it('a Touchstone 2-port file', async () => {
-		await expectRefused(() => upload(fixture('two-port.s2p'), 'two.s2p'), 422, /only 1-port/i, 3);
+	it('a Touchstone file with more than 2 ports', async () => {
+		// Touchstone 1.1: a 3-port file's first data line holds the frequency and 3 pairs
+		const three = '# GHz S MA R 50\n1 0.5 0 0.1 0 0.1 0\n 0.1 0 0.5 0 0.1 0\n 0.1 0 0.1 0 0.5 0\n';
+		await expectRefused(() => upload(three, 'three.s3p'), 422, /only 1-port and 2-port/i, 2);
+	});
+
+	it('S22 asked of a 1-port file names the parameter field', async () => {
+		const err = await expectRefused(
+			() =>
+				addMeasurement(author, r, {
+					fields: { ...fields, parameter: 's22' },
+					file: { bytes: bytes('# MHz S MA R 50\n2.0 0.5 10\n'), name: 'one.s1p' }
+				}),
+			422,
+			/S22 was asked for, but this is a 1-port file/
+		);
+		expect(err.field).toBe('parameter');
+		await expectRefused(
+			() =>
+				addMeasurement(author, r, {
+					fields: { ...fields, parameter: 's21' },
+					file: { bytes: bytes('# MHz S MA R 50\n2.0 0.5 10\n'), name: 'one.s1p' }
+				}),
+			400,
+			/Parameter must be one of s11, s22/
+		);
 	});
 
 	it('an option line after data', async () => {
@@ -238,12 +267,12 @@ describe('bad sweep files', () => {
 		);
 	});
 
-	it('a magnitude above 1 in MA (not passive)', async () => {
+	it('magnitudes above 1.05 at most points in MA (not passive)', async () => {
 		// Touchstone MA: magnitude is |S11|; a passive 1-port has |S11| ≤ 1 (Pozar 4th ed. §4.3)
 		await expectRefused(
-			() => upload('# MHz S MA R 50\n2.0 0.5 10\n2.1 1.5 10\n'),
+			() => upload('# MHz S MA R 50\n2.0 0.5 10\n2.1 1.5 10\n2.2 1.4 10\n'),
 			422,
-			/passive/,
+			/^Not a passive one-port/,
 			3
 		);
 	});
@@ -283,6 +312,80 @@ describe('bad sweep files', () => {
 		const row = getMeasurement(made.id)!;
 		expect(row.fileName).toBe('export.csv');
 		expect((row.analysis as { points: number }).points).toBe(3);
+	});
+});
+
+describe('files from real instruments: stored with their warnings', () => {
+	let r: ReturnType<typeof designAt>;
+	beforeAll(() => {
+		r = designAt(author, 'Sweep quirks test', 2.45e9, [2.4e9, 2.5e9]);
+	});
+	// resonance at 2450 MHz, Q 8, R = Z0: far from it |S11| nears 1 (0.9926 at 1 and 6 GHz [calc])
+	const rows = resonanceRows(2450, 8, 50, 1000, 6000, 501);
+
+	it('calibration noise above |S11| = 1: kept in the analysis, the metrics, the panel and the series', async () => {
+		const noisy = rows.map(([f, m, a]): [number, number, number] => [
+			f,
+			m > 0.99 ? m * 1.008 : m,
+			a
+		]);
+		const above = noisy.filter((x) => x[1] > 1);
+		expect(above.length).toBeGreaterThan(4);
+		const made = await addMeasurement(author, r, {
+			fields,
+			file: { bytes: bytes(touchstone(noisy)), name: 'open-ended.s1p' }
+		});
+		expect(made.claimPass).toBe(true);
+		const row = getMeasurement(made.id)!;
+		const warning = {
+			code: 'above_unity',
+			count: above.length,
+			max_excess: expect.closeTo(Math.max(...above.map((x) => x[1])) - 1, 9),
+			frequency_hz: expect.any(Number),
+			message: expect.stringMatching(/calibration noise/)
+		};
+		expect((row.analysis as { warnings: unknown[] }).warnings).toEqual([warning]);
+		// the listing column kept by the trigger (drizzle/0003) carries them too
+		expect((row.metrics as { warnings: unknown[] }).warnings).toEqual([warning]);
+		const panel = measurementsPanelData(getDesignBySlug('sweep-quirks-test')!, r, null);
+		expect(panel.measurementsPanel.items.at(-1)!.warnings).toEqual([warning]);
+		expect(measurementSeries(row, 'x').warnings).toEqual([warning]);
+	});
+
+	it('a 2-port file: S22 when asked, stored as .s2p with a note saying which parameter was used', async () => {
+		const other = resonanceRows(2300, 8, 50, 1000, 6000, 501);
+		const lines = rows.map(
+			(x, i) => `${x[0]} ${x[1]} ${x[2]} 0.1 0 0.1 0 ${other[i][1]} ${other[i][2]}`
+		);
+		const text = ['# MHz S MA R 50', ...lines].join('\n');
+		const s11 = await addMeasurement(author, r, {
+			fields,
+			file: { bytes: bytes(text), name: 'dual.s2p' }
+		});
+		expect(s11.claimPass).toBe(true);
+		const s22 = await addMeasurement(author, r, {
+			fields: { ...fields, parameter: 's22' },
+			file: { bytes: bytes(text), name: 'dual.s2p' }
+		});
+		expect(s22.claimPass).toBe(false); // the 2300 MHz resonance misses 2.4–2.5 GHz
+		const row = getMeasurement(s22.id)!;
+		expect(row.fileName).toBe('dual.s2p');
+		const notes = (row.analysis as { warnings: { code: string; message: string }[] }).warnings;
+		expect(notes).toHaveLength(1);
+		expect(notes[0].code).toBe('two_port_parameter');
+		expect(notes[0].message).toMatch(/^2-port file: S22/);
+	});
+
+	it('the analyze path returns the same warnings for a Z file, storing nothing', () => {
+		const before = rowCounts();
+		const result = analyzeBytes(bytes('# MHz Z RI R 50\n2400 1 -0.5\n2450 1 0\n2500 1 0.5\n'), {
+			format: 'auto',
+			design_hz: 2450e6
+		});
+		// [calc] z = 1 (Z = R) at 2450 MHz: Γ = 0, VSWR 1
+		expect(result.vswr_at_design).toBeCloseTo(1, 12);
+		expect(result.warnings.map((w) => w.code)).toEqual(['converted_from_z']);
+		expect(rowCounts()).toEqual(before);
 	});
 });
 

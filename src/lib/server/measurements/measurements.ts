@@ -59,7 +59,8 @@ function parseSweepBytes(
 		z0: q.z0,
 		column: q.column,
 		quantity: q.quantity,
-		freq_unit: q.freq_unit
+		freq_unit: q.freq_unit,
+		parameter: q.parameter
 	});
 	if (!parsed.ok) {
 		const e = parsed.error;
@@ -90,6 +91,8 @@ export function analyzeBytes(bytes: Uint8Array, q: AnalyzeQuery): AnalyzeResult 
 	}
 	return analyzeSweep(sweep, options);
 }
+
+const sweepExtension = (s: Sweep) => (s.source === 'csv' ? 'csv' : s.ports === 2 ? 's2p' : 's1p');
 
 interface ClaimUsed {
 	band_lo_hz: number;
@@ -176,7 +179,7 @@ export async function addMeasurement(
 					deviations: build?.deviations ?? '',
 					materials: build?.materials ?? '',
 					fileKey: key,
-					fileName: safeFileName(input.file.name, sweep.source === 'csv' ? 'csv' : 's1p', 'sweep'),
+					fileName: safeFileName(input.file.name, sweepExtension(sweep), 'sweep'),
 					fileType: SWEEP_CONTENT_TYPE,
 					fileSize: input.file.bytes.byteLength,
 					analysis: analysis as unknown as Record<string, unknown>,
@@ -263,6 +266,7 @@ export function measurementSeries(m: MeasurementRow, uploader: string) {
 		min_vswr: a.min_vswr,
 		f_min_vswr_hz: a.f_min_vswr_hz,
 		phase_known: a.phase_known,
+		warnings: a.warnings ?? [],
 		is_demo: m.isDemo,
 		series: a.series
 	};

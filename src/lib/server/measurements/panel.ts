@@ -45,6 +45,8 @@ function measurementSummary(
 		vswr_at_design: a.vswr_at_design,
 		design_hz: a.design_hz,
 		phase_known: a.phase_known,
+		/** Stored with the analysis since issue 20; older sweeps have none. */
+		warnings: a.warnings ?? [],
 		claim: a.claim ? { ...a.claim, ...a.claim_used } : null,
 		/** A build report on a revision no reviewer has approved (yet). */
 		unreviewedBase: m.kind === 'build_report' && r.state !== 'approved'

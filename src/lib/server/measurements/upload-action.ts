@@ -1,9 +1,10 @@
 // The one shape of an upload action: guard, rate limit, read the multipart form, store, redirect.
-import { fail, redirect, type RequestEvent } from '@sveltejs/kit';
+import { fail, isHttpError, redirect, type RequestEvent } from '@sveltejs/kit';
 import { uploadFormSchema, type UploadForm } from '$lib/schemas/measurement';
 import { requireVerifiedMember } from '../http/guards';
 import { isLimited } from '../http/rate-limit';
 import { actionFailure, readForm } from '../http/actions';
+import { retryBusy } from '../db/busy';
 import { loadDesignRevision } from '../designs/revision-view';
 import { tooLarge, UploadError } from './uploads';
 import type { SessionUser } from '../accounts/auth';
@@ -39,8 +40,15 @@ export async function uploadAction(
 	}
 	let form: Awaited<ReturnType<typeof readForm<typeof uploadFormSchema>>>;
 	try {
-		form = await readForm(await event.request.formData(), uploadFormSchema, { files: true });
-	} catch {
+		form = await readForm(event.request, uploadFormSchema, { files: true });
+	} catch (e) {
+		if (!isHttpError(e)) throw e;
+		// Past the server's body limit the file is too large too: the same message as just over ours.
+		if (e.status === 413) {
+			const declared = Number(event.request.headers.get('content-length'));
+			const size = Number.isFinite(declared) && declared > opts.max ? declared : opts.max + 1;
+			return actionFailure(tooLarge(size, opts.max, opts.what), { values: {} });
+		}
 		return refused(400, 'The upload could not be read; send the form again.');
 	}
 	const values = textFields(form.data);
@@ -52,7 +60,8 @@ export async function uploadAction(
 		}
 		if (file.size > opts.max) throw tooLarge(file.size, opts.max, opts.what);
 		const bytes = new Uint8Array(await file.arrayBuffer());
-		id = (await store(user, revision!, { fields: values, file: { bytes, name: file.name } })).id;
+		const input = { fields: values, file: { bytes, name: file.name } };
+		id = (await retryBusy(() => store(user, revision!, input))).id;
 	} catch (e) {
 		return actionFailure(e, { values });
 	}

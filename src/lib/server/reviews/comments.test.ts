@@ -1,4 +1,5 @@
-import { beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { mailSettled } from '../mail/send';
 import { eq } from 'drizzle-orm';
 import { JSDOM } from 'jsdom';
 import { createAccount } from '../accounts/accounts';
@@ -49,6 +50,9 @@ function submitted() {
 	submitRevision(author, revisionId);
 	return { slug, id: revisionId };
 }
+
+// Notices are sent in the background: let them finish before this file's database goes.
+afterAll(mailSettled);
 
 beforeAll(async () => {
 	author = await person('c-author@example.org', 'member');

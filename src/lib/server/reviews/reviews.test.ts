@@ -1,14 +1,20 @@
-import { beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { mailSettled } from '../mail/send';
 import { and, eq } from 'drizzle-orm';
 import { createAccount } from '../accounts/accounts';
 import { toSessionUser, type SessionUser } from '../accounts/auth';
 import { db } from '../db';
 import { auditLog, designs, mailQueue, reviews, users, type Role } from '../db/schema';
 import { createDesign, starterContent } from '../designs/designs';
-import { getDesignBySlug, listRevisions } from '../designs/lookups';
+import { getDesignBySlug, getRevision, getRevisionById, listRevisions } from '../designs/lookups';
 import { startRevision, submitRevision, withdrawRevision } from '../designs/revisions';
-import { getRevision, getRevisionById } from '../designs/lookups';
-import { confirmReject, listQueue, reviewsPanelData, submitReview } from './reviews';
+import {
+	confirmableRejects,
+	confirmReject,
+	listQueue,
+	reviewsPanelData,
+	submitReview
+} from './reviews';
 import { DomainError } from '../http/errors';
 
 let author: SessionUser;
@@ -56,11 +62,15 @@ const ok = (summary = 'Checked the table against my own build.') => ({
 	summary
 });
 
+// Notices are sent in the background: let them finish before this file's database goes.
+afterAll(mailSettled);
+
 beforeAll(async () => {
 	author = await person('rev-author@example.org', 'member');
 	tomas = await person('rev-tomas@example.org', 'reviewer');
 	ines = await person('rev-ines@example.org', 'reviewer');
 	wren = await person('rev-wren@example.org', 'moderator');
+	await person('rev-wren2@example.org', 'moderator');
 	plain = await person('rev-plain@example.org', 'member');
 });
 
@@ -160,6 +170,45 @@ describe('verdicts and the approval policy', () => {
 			.all()
 			.map((a) => a.action);
 		expect(actions).toContain('review.reject_confirm');
+	});
+
+	it('a rejection needs a second person: the moderator who gave it cannot confirm it', () => {
+		const { id } = submitted();
+		expect(
+			submitReview(wren, id, { verdict: 'reject', summary: 'Measured VSWR never below 3.' }).state
+		).toBe('reject_pending');
+		const rejectId = db
+			.select()
+			.from(reviews)
+			.where(and(eq(reviews.revisionId, id), eq(reviews.verdict, 'reject')))
+			.get()!.id;
+		expect(status(() => confirmReject(wren, rejectId))).toBe(403);
+		expect(stateOf(id)).toBe('submitted');
+		const other = toSessionUser(
+			db.select().from(users).where(eq(users.email, 'rev-wren2@example.org')).get()!
+		);
+		// The review page offers the confirm button only to the second moderator.
+		const r = getRevisionById(id)!;
+		const design = db.select().from(designs).where(eq(designs.id, r.designId)).get()!;
+		expect(confirmableRejects(r, design, wren)).toEqual([]);
+		expect(confirmableRejects(r, design, other).map((v) => v.id)).toEqual([rejectId]);
+		confirmReject(other, rejectId);
+		expect(stateOf(id)).toBe('returned');
+	});
+
+	it('a moderator cannot confirm a rejection on a design they own or wrote', async () => {
+		const modAuthor = await person('rev-mod-author@example.org', 'moderator');
+		const { revisionId } = createDesign(
+			modAuthor,
+			{ title: 'Moderator design', family: 'dipole', polarization: 'linear', summary: '' },
+			starterContent(868e6)
+		);
+		submitRevision(modAuthor, revisionId);
+		submitReview(tomas, revisionId, { verdict: 'reject', summary: 'Wrong band.' });
+		const rejectId = db.select().from(reviews).where(eq(reviews.revisionId, revisionId)).get()!.id;
+		expect(status(() => confirmReject(modAuthor, rejectId))).toBe(403);
+		expect(status(() => submitReview(modAuthor, revisionId, ok()))).toBe(403);
+		expect(stateOf(revisionId)).toBe('submitted');
 	});
 
 	it('a reviewer may change their verdict while the revision waits; the latest counts', () => {

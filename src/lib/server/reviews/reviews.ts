@@ -28,8 +28,7 @@ import type { SessionUser } from '../accounts/auth';
 
 export const isReviewer = (u: SessionUser | null) =>
 	!!u && u.emailVerified && (u.role === 'reviewer' || u.role === 'moderator');
-export const isModerator = (u: SessionUser | null) =>
-	!!u && u.emailVerified && u.role === 'moderator';
+const isModerator = (u: SessionUser | null) => !!u && u.emailVerified && u.role === 'moderator';
 
 export interface ReviewOptions {
 	now?: Date;
@@ -219,8 +218,13 @@ export function confirmReject(user: SessionUser, reviewId: string, options: Revi
 		const design = tx.select().from(designs).where(eq(designs.id, r.designId)).get()!;
 		if (r.state !== 'submitted')
 			throw new DomainError(409, `r${r.number} is ${r.state}; there is nothing to confirm.`);
-		if (r.authorId === user.id)
-			throw new DomainError(403, 'You cannot confirm a rejection of your own revision.');
+		if (r.authorId === user.id || design.ownerId === user.id) {
+			throw new DomainError(403, 'You cannot confirm a rejection of your own design.');
+		}
+		// Confirming is a second person's check: the one who rejected cannot also confirm.
+		if (review.reviewerId === user.id) {
+			throw new DomainError(403, 'Another moderator must confirm your own rejection.');
+		}
 		tx.update(reviews)
 			.set({ confirmedById: user.id, confirmedAt: now })
 			.where(eq(reviews.id, review.id))
@@ -249,6 +253,14 @@ export function confirmReject(user: SessionUser, reviewId: string, options: Revi
 		return design.id;
 	});
 	reindexDesign(designId);
+}
+
+/** The pending rejects this user may confirm: a moderator's, not their own, not on their own design. */
+export function confirmableRejects(r: Revision, design: Design, user: SessionUser) {
+	if (!isModerator(user) || r.authorId === user.id || design.ownerId === user.id) return [];
+	return verdictsOf(r.id)
+		.filter((v) => v.verdict === 'reject' && !v.confirmedAt && v.reviewerId !== user.id)
+		.map((v) => ({ id: v.id, reviewerName: ownerName(v.reviewerId) }));
 }
 
 export interface ReviewView {

@@ -8,6 +8,10 @@ export interface BlobStore {
 	get(key: string): Promise<Uint8Array | null>;
 	/** Remove the blob; removing a missing key is not an error. */
 	delete(key: string): Promise<void>;
+	/** The name of every blob held (for the start-up sweep); names need not be keys of ours. */
+	list(): AsyncIterable<string>;
+	/** Removes what writes cut short left behind; their names, relative to the store. */
+	removeTemporary(): Promise<string[]>;
 }
 
 export type BlobField = 'key' | 'prefix' | 'bytes' | 'contentType';
@@ -81,3 +85,7 @@ export function newBlobKey(prefix: string, now = new Date()): string {
 	const mm = String(now.getUTCMonth() + 1).padStart(2, '0');
 	return checkBlobKey(`${prefix}/${yyyy}/${mm}/${base32(randomBytes(20))}`);
 }
+
+/** Whether a name has the shape newBlobKey gives: `prefix/yyyy/mm/<32 base32 chars>`. */
+export const isGeneratedKey = (name: string) =>
+	/^[a-z0-9_-]+\/\d{4}\/\d{2}\/[a-z2-7]{32}$/.test(name);

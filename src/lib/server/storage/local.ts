@@ -1,5 +1,5 @@
 import { randomBytes } from 'node:crypto';
-import { mkdir, open, readFile, rename, unlink } from 'node:fs/promises';
+import { mkdir, open, readdir, readFile, rename, unlink } from 'node:fs/promises';
 import path from 'node:path';
 import { BlobInputError, checkBlobInput, checkBlobKey, type BlobStore } from './blob';
 
@@ -22,6 +22,20 @@ export function createLocalStore(dir: string): BlobStore {
 		}
 		return file;
 	}
+
+	/** Every file under the root, as "/"-separated paths relative to it. */
+	async function files(): Promise<string[]> {
+		try {
+			const entries = await readdir(root, { recursive: true, withFileTypes: true });
+			return entries
+				.filter((e) => e.isFile())
+				.map((e) => path.relative(root, path.join(e.parentPath, e.name)).split(path.sep).join('/'));
+		} catch (e) {
+			if (code(e) === 'ENOENT') return [];
+			throw e;
+		}
+	}
+	const isTemporary = (name: string) => name.endsWith('.tmp');
 
 	return {
 		async put(key, bytes, contentType) {
@@ -66,6 +80,21 @@ export function createLocalStore(dir: string): BlobStore {
 			} catch (e) {
 				if (!ABSENT.has(code(e))) throw e;
 			}
+		},
+
+		async *list() {
+			for (const name of await files()) if (!isTemporary(name)) yield name;
+		},
+
+		async removeTemporary() {
+			const removed: string[] = [];
+			for (const name of (await files()).filter(isTemporary)) {
+				await unlink(path.join(root, ...name.split('/'))).catch((e) => {
+					if (!ABSENT.has(code(e))) throw e;
+				});
+				removed.push(name);
+			}
+			return removed;
 		}
 	};
 }

@@ -61,6 +61,19 @@ beforeAll(async () => {
 			res.setHeader('etag', '"fake"');
 			return send(200);
 		}
+		if (req.method === 'GET' && url.searchParams.get('list-type') === '2') {
+			// ListObjectsV2, two keys a page, so the driver must follow continuation tokens.
+			const keys = [...objects.keys()].sort();
+			const from = Number(url.searchParams.get('continuation-token') ?? 0);
+			const page = keys.slice(from, from + 2);
+			const more = from + 2 < keys.length;
+			return send(
+				200,
+				`<?xml version="1.0" encoding="UTF-8"?><ListBucketResult><Name>${BUCKET}</Name>` +
+					page.map((k) => `<Contents><Key>${k}</Key></Contents>`).join('') +
+					`<IsTruncated>${more}</IsTruncated>${more ? `<NextContinuationToken>${from + 2}</NextContinuationToken>` : ''}</ListBucketResult>`
+			);
+		}
 		if (req.method === 'GET') {
 			const o = objects.get(key);
 			return o ? send(200, o.body, o.type) : send(...s3Error(404, 'NoSuchKey', key));
@@ -124,6 +137,21 @@ describe('s3 store against a fake S3 server', () => {
 		expect(objects.has(key)).toBe(false);
 		await expect(store.delete(key)).resolves.toBeUndefined();
 		expect(seen.filter((s) => s.method === 'DELETE')).toHaveLength(2);
+	});
+
+	it('lists every key across pages, and has no temporary objects to remove', async () => {
+		const keys = [
+			newBlobKey('photos'),
+			newBlobKey('photos'),
+			newBlobKey('sweeps'),
+			newBlobKey('sweeps'),
+			newBlobKey('sweeps')
+		];
+		for (const key of keys) await store.put(key, Uint8Array.of(1), 'image/webp');
+		const listed: string[] = [];
+		for await (const key of store.list()) listed.push(key);
+		expect(listed.sort()).toEqual([...keys].sort());
+		expect(await store.removeTemporary()).toEqual([]);
 	});
 
 	it('passes on errors other than not-found', async () => {

@@ -18,6 +18,11 @@ interface ObjectInput {
 interface GetOutput {
 	Body?: { transformToByteArray(): Promise<Uint8Array> };
 }
+interface ListOutput {
+	Contents?: { Key?: string }[];
+	IsTruncated?: boolean;
+	NextContinuationToken?: string;
+}
 interface S3ClientLike {
 	send(command: unknown): Promise<unknown>;
 }
@@ -28,6 +33,7 @@ interface S3Sdk {
 	) => unknown;
 	GetObjectCommand: new (input: ObjectInput) => unknown;
 	DeleteObjectCommand: new (input: ObjectInput) => unknown;
+	ListObjectsV2Command: new (input: { Bucket: string; ContinuationToken?: string }) => unknown;
 }
 
 // A variable specifier keeps bundlers from resolving the package at build time.
@@ -103,6 +109,23 @@ export function createS3Store(config: S3StoreConfig): BlobStore {
 			const Key = checkBlobKey(key);
 			const { sdk, client } = await connect();
 			await client.send(new sdk.DeleteObjectCommand({ Bucket, Key }));
+		},
+
+		async *list() {
+			const { sdk, client } = await connect();
+			let ContinuationToken: string | undefined;
+			do {
+				const out = (await client.send(
+					new sdk.ListObjectsV2Command({ Bucket, ContinuationToken })
+				)) as ListOutput;
+				for (const o of out.Contents ?? []) if (o.Key) yield o.Key;
+				ContinuationToken = out.IsTruncated ? out.NextContinuationToken : undefined;
+			} while (ContinuationToken);
+		},
+
+		// A PutObject is whole or absent: S3 keeps nothing half-written.
+		async removeTemporary() {
+			return [];
 		}
 	};
 }

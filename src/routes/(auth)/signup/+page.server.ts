@@ -5,6 +5,8 @@ import { signUpSchema } from '$lib/schemas/auth';
 import { createAccount, issueEmailToken } from '$lib/server/accounts/accounts';
 import { sendAlreadyRegisteredMail, sendVerificationMail } from '$lib/server/accounts/account-mail';
 import { passwordProblem } from '$lib/server/accounts/password';
+import { retryBusy } from '$lib/server/db/busy';
+import { readForm } from '$lib/server/http/actions';
 import { isLimited } from '$lib/server/http/rate-limit';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -15,7 +17,7 @@ export const load: PageServerLoad = async ({ locals }) => {
 
 export const actions: Actions = {
 	default: async (event) => {
-		const form = await superValidate(event.request, zod4(signUpSchema));
+		const form = await readForm(event.request, signUpSchema);
 		const { password } = form.data;
 		form.data.password = '';
 		if (await isLimited('signUp', event)) {
@@ -27,16 +29,18 @@ export const actions: Actions = {
 		const problem = passwordProblem(password, form.data.email);
 		if (problem) return setError(form, 'password', problem);
 
-		const created = await createAccount({ ...form.data, password });
+		const created = await retryBusy(() => createAccount({ ...form.data, password }));
 		// The same answer whether or not the address already had an account (ASVS 6.3.8).
 		if (created) {
-			await sendVerificationMail(
-				created.email,
-				form.data.displayName,
-				issueEmailToken(created.id, 'verify_email')
+			await retryBusy(() =>
+				sendVerificationMail(
+					created.email,
+					form.data.displayName,
+					issueEmailToken(created.id, 'verify_email')
+				)
 			);
 		} else {
-			await sendAlreadyRegisteredMail(form.data.email.toLowerCase());
+			await retryBusy(() => sendAlreadyRegisteredMail(form.data.email.toLowerCase()));
 		}
 		redirect(303, '/signup/sent');
 	}

@@ -1,9 +1,9 @@
 import { fail } from '@sveltejs/kit';
-import { superValidate } from 'sveltekit-superforms';
-import { zod4 } from 'sveltekit-superforms/adapters';
 import { roleChangeSchema } from '$lib/schemas/auth';
 import { requireRole } from '$lib/server/http/guards';
 import { listUsers, setRole } from '$lib/server/accounts/users';
+import { retryBusy } from '$lib/server/db/busy';
+import { readForm } from '$lib/server/http/actions';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ url }) => {
@@ -23,12 +23,12 @@ export const load: PageServerLoad = ({ url }) => {
 };
 
 export const actions: Actions = {
-	setRole: async ({ request }) => {
+	setRole: async (event) => {
 		const actor = requireRole('moderator');
-		const form = await superValidate(request, zod4(roleChangeSchema));
+		const form = await readForm(event.request, roleChangeSchema);
 		if (!form.valid)
 			return fail(400, { message: 'Choose a user and one of member, reviewer, moderator.' });
-		const result = setRole(actor.id, form.data.userId, form.data.role);
+		const result = await retryBusy(() => setRole(actor.id, form.data.userId, form.data.role));
 		if (!result.ok) return fail(400, { message: result.message });
 		return { message: `Role changed from ${result.from} to ${result.to}.` };
 	}

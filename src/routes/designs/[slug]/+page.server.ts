@@ -4,6 +4,7 @@ import { loadDesignRevision, revisionPageData } from '$lib/server/designs/revisi
 import { startRevision } from '$lib/server/designs/revisions';
 import { requireVerifiedMember } from '$lib/server/http/guards';
 import { actionFailure } from '$lib/server/http/actions';
+import { retryBusy } from '$lib/server/db/busy';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ params, url, locals }) => {
@@ -20,12 +21,12 @@ export const load: PageServerLoad = ({ params, url, locals }) => {
 
 /** What the design's owner does to the design as a whole. */
 export const actions: Actions = {
-	newRevision: ({ params, locals }) => {
+	newRevision: async ({ params, locals }) => {
 		const user = requireVerifiedMember();
 		const { design } = loadDesignRevision(params.slug, undefined, locals.user);
 		let number: number;
 		try {
-			number = startRevision(user, design).number;
+			number = (await retryBusy(() => startRevision(user, design))).number;
 		} catch (e) {
 			return actionFailure(e);
 		}

@@ -30,10 +30,12 @@ export const GET: RequestHandler = async ({ params, url, locals }) => {
 	let key: string;
 	let type: string;
 	let headers: Record<string, string>;
+	let draft: boolean;
 	const m = getMeasurement(params.id);
 	if (m) {
 		const r = getRevisionById(m.revisionId);
 		if (!r || !canRead(locals.user, r)) notFound();
+		draft = r!.state === 'draft';
 		key = m.fileKey;
 		type = m.fileType;
 		headers = { 'content-disposition': disposition('attachment', m.fileName) };
@@ -41,6 +43,7 @@ export const GET: RequestHandler = async ({ params, url, locals }) => {
 		const a = getAttachment(params.id);
 		const r = a ? getRevisionById(a.revisionId) : null;
 		if (!a || !r || !canRead(locals.user, r)) notFound();
+		draft = r!.state === 'draft';
 		const v = (url.searchParams.get('v') ?? 'display') as Variant;
 		if (!VARIANTS.includes(v)) error(400, 'v must be display, thumb or original.');
 		if (v === 'original' && !a!.originalKey)
@@ -60,7 +63,8 @@ export const GET: RequestHandler = async ({ params, url, locals }) => {
 			'content-length': String(bytes!.byteLength),
 			'x-content-type-options': 'nosniff',
 			'content-security-policy': "default-src 'none'; sandbox",
-			'cache-control': 'private, max-age=3600'
+			// A draft's files are its author's alone: never kept once the session is gone.
+			'cache-control': draft ? 'private, no-store' : 'private, max-age=3600'
 		}
 	});
 };

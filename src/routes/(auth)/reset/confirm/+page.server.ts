@@ -5,7 +5,9 @@ import { resetConfirmSchema } from '$lib/schemas/auth';
 import { peekEmailToken, resetPassword, TOKEN_MESSAGES } from '$lib/server/accounts/accounts';
 import { clearSessionCookie } from '$lib/server/accounts/auth';
 import { passwordProblem } from '$lib/server/accounts/password';
+import { readForm } from '$lib/server/http/actions';
 import { isLimited } from '$lib/server/http/rate-limit';
+import { retryBusy } from '$lib/server/db/busy';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ url }) => {
@@ -20,7 +22,7 @@ export const load: PageServerLoad = async ({ url }) => {
 
 export const actions: Actions = {
 	default: async (event) => {
-		const form = await superValidate(event.request, zod4(resetConfirmSchema));
+		const form = await readForm(event.request, resetConfirmSchema);
 		const { password } = form.data;
 		form.data.password = '';
 		if (await isLimited('reset', event)) {
@@ -29,7 +31,7 @@ export const actions: Actions = {
 		if (!form.valid) return fail(400, { form });
 		const problem = passwordProblem(password);
 		if (problem) return setError(form, 'password', problem);
-		const result = await resetPassword(form.data.token, password);
+		const result = await retryBusy(() => resetPassword(form.data.token, password));
 		if (!result.ok) return message(form, TOKEN_MESSAGES[result.reason], { status: 400 });
 		clearSessionCookie(event.cookies);
 		redirect(303, '/signin?reset=1');

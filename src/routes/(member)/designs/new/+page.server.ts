@@ -4,10 +4,12 @@ import { actionFailure, firstProblem, formFailure, readForm } from '$lib/server/
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { importDesignSchema, newDesignSchema } from '$lib/schemas/new-design';
 import { parseFrequency } from '$lib/rf/units/frequency';
-import { parseDesignFile, MAX_DESIGN_FILE_BYTES } from '$lib/design-file';
+import { MAX_DESIGN_FILE_BYTES } from '$lib/design-file';
 import { requireVerifiedMember } from '$lib/server/http/guards';
 import { createDesign, starterContent } from '$lib/server/designs/designs';
+import { importDesignFile } from '$lib/server/designs/import';
 import { isLimited } from '$lib/server/http/rate-limit';
+import { retryBusy } from '$lib/server/db/busy';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async () => {
@@ -18,7 +20,7 @@ export const load: PageServerLoad = async () => {
 export const actions: Actions = {
 	create: async (event) => {
 		const user = requireVerifiedMember();
-		const form = await superValidate(event.request, zod4(newDesignSchema));
+		const form = await readForm(event.request, newDesignSchema);
 		if (await isLimited('write', event))
 			return message(form, 'Too many changes at once; wait a minute.', { status: 429 });
 		if (!form.valid) return fail(400, { form });
@@ -26,8 +28,9 @@ export const actions: Actions = {
 		if (!f.ok) return setError(form, 'frequency', f.message);
 		let slug: string;
 		try {
-			const { frequency: _f, slug: wanted, ...meta } = form.data;
-			slug = createDesign(user, { ...meta, slug: wanted || undefined }, starterContent(f.hz)).slug;
+			const { frequency: _f, slug: wanted, ...rest } = form.data;
+			const meta = { ...rest, slug: wanted || undefined };
+			slug = (await retryBusy(() => createDesign(user, meta, starterContent(f.hz)))).slug;
 		} catch (e) {
 			return formFailure(form, e);
 		}
@@ -43,12 +46,9 @@ export const actions: Actions = {
 		const { file } = form.data;
 		if (file.size > MAX_DESIGN_FILE_BYTES)
 			return fail(413, { importError: 'The design file is larger than 512 kB.' });
-		const parsed = parseDesignFile(await file.text());
-		if (!parsed.ok) return fail(422, { importError: parsed.error.message });
-		const { title, slug, family, polarization, summary, ...content } = parsed.value;
 		let created: string;
 		try {
-			created = createDesign(user, { title, slug, family, polarization, summary }, content).slug;
+			created = (await importDesignFile(user, new Uint8Array(await file.arrayBuffer()))).slug;
 		} catch (e) {
 			const failure = actionFailure(e);
 			return fail(failure.status, { importError: failure.data.message });

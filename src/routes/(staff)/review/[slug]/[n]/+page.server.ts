@@ -3,15 +3,16 @@ import { requireUser } from '$lib/server/http/guards';
 import { compareRevisions, readableRevisions } from '$lib/server/reviews/compare';
 import { addComment, listThreads, noteLineCount, setResolved } from '$lib/server/reviews/comments';
 import {
+	confirmableRejects,
 	confirmReject,
 	decisionFor,
-	isModerator,
 	isReviewer,
 	reviewsFor,
 	submitReview
 } from '$lib/server/reviews/reviews';
 import { actionFailure, firstProblem, readForm } from '$lib/server/http/actions';
 import { isLimited } from '$lib/server/http/rate-limit';
+import { retryBusy } from '$lib/server/db/busy';
 import { getDesignBySlug } from '$lib/server/designs/lookups';
 import { ownerName } from '$lib/server/accounts/users';
 import { tableForView } from '$lib/server/designs/dimensions';
@@ -83,12 +84,7 @@ export const load: PageServerLoad = (event) => {
 		threads: listThreads(r, user),
 		reviews,
 		decision: decision && { state: decision.state, reason: decision.reason },
-		pendingRejects:
-			decision?.state === 'reject_pending' && isModerator(user)
-				? reviews
-						.filter((v) => v.verdict === 'reject' && !v.confirmedAt)
-						.map((v) => ({ id: v.id, reviewerName: v.reviewerName }))
-				: [],
+		pendingRejects: decision?.state === 'reject_pending' ? confirmableRejects(r, design, user) : [],
 		can: {
 			review: isReviewer(user) && !isAuthor && r.state === 'submitted',
 			comment: r.state !== 'withdrawn' && r.state !== 'draft',
@@ -128,7 +124,8 @@ export const actions: Actions = {
 		let id: string;
 		try {
 			const anchor = anchorFromForm(d);
-			id = addComment(user, r.id, { body: d.body, anchor, parentId: d.parent_id || undefined }).id;
+			const input = { body: d.body, anchor, parentId: d.parent_id || undefined };
+			id = (await retryBusy(() => addComment(user, r.id, input))).id;
 		} catch (e) {
 			return actionFailure(e, { action: 'comment', values });
 		}
@@ -138,7 +135,7 @@ export const actions: Actions = {
 		const { user, design, r } = open(event, true);
 		const { data } = await readForm(event.request, resolveFormSchema);
 		try {
-			setResolved(user, data.comment_id, data.resolved !== '0');
+			await retryBusy(() => setResolved(user, data.comment_id, data.resolved !== '0'));
 		} catch (e) {
 			return actionFailure(e, { action: 'resolve', values: {} as Values });
 		}
@@ -152,7 +149,8 @@ export const actions: Actions = {
 		if (await isLimited('write', event)) return tooMany('review', values);
 		let id: string;
 		try {
-			id = submitReview(user, r.id, { verdict: data.verdict, summary: data.summary }).id;
+			const verdict = { verdict: data.verdict, summary: data.summary };
+			id = (await retryBusy(() => submitReview(user, r.id, verdict))).id;
 		} catch (e) {
 			return actionFailure(e, { action: 'review', values });
 		}
@@ -162,7 +160,7 @@ export const actions: Actions = {
 		const { user, design, r } = open(event, true);
 		const { data } = await readForm(event.request, confirmRejectFormSchema);
 		try {
-			confirmReject(user, data.review_id);
+			await retryBusy(() => confirmReject(user, data.review_id));
 		} catch (e) {
 			return actionFailure(e, { action: 'confirmReject', values: {} as Values });
 		}

@@ -2,6 +2,7 @@ import { redirect } from '@sveltejs/kit';
 import { loadDesignRevision, revisionPageData } from '$lib/server/designs/revision-view';
 import { requireVerifiedMember } from '$lib/server/http/guards';
 import { actionFailure } from '$lib/server/http/actions';
+import { retryBusy } from '$lib/server/db/busy';
 import { submitRevision, withdrawRevision } from '$lib/server/designs/revisions';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -12,21 +13,21 @@ export const load: PageServerLoad = ({ params, url, locals }) => {
 
 /** What a revision's author does to that revision; design-level actions live on the design's route. */
 export const actions: Actions = {
-	submit: ({ params, locals }) => {
+	submit: async ({ params, locals }) => {
 		const user = requireVerifiedMember();
 		const { design, revision } = loadDesignRevision(params.slug, params.n, locals.user);
 		try {
-			submitRevision(user, revision!.id);
+			await retryBusy(() => submitRevision(user, revision!.id));
 		} catch (e) {
 			return actionFailure(e);
 		}
 		redirect(303, `/designs/${design.slug}/r/${revision!.number}?submitted=1`);
 	},
-	withdraw: ({ params, locals }) => {
+	withdraw: async ({ params, locals }) => {
 		const user = requireVerifiedMember();
 		const { design, revision } = loadDesignRevision(params.slug, params.n, locals.user);
 		try {
-			withdrawRevision(user, revision!.id);
+			await retryBusy(() => withdrawRevision(user, revision!.id));
 		} catch (e) {
 			return actionFailure(e);
 		}

@@ -6,6 +6,7 @@ import { CATALOGUE_IDS } from '$lib/rf/catalogues/stock';
 import { contentOf } from '$lib/server/designs/content';
 import { DomainError } from '$lib/server/http/errors';
 import { isLimited } from '$lib/server/http/rate-limit';
+import { retryBusy } from '$lib/server/db/busy';
 import { editableDraft } from '$lib/server/designs/revision-view';
 import { saveDraft, submitRevision } from '$lib/server/designs/revisions';
 import type { Actions, PageServerLoad } from './$types';
@@ -36,8 +37,8 @@ async function save(event: Parameters<Actions[string]>[0], andSubmit: boolean) {
 		});
 	}
 	try {
-		saveDraft(user, r.id, parsed.content);
-		if (andSubmit) submitRevision(user, r.id);
+		await retryBusy(() => saveDraft(user, r.id, parsed.content));
+		if (andSubmit) await retryBusy(() => submitRevision(user, r.id));
 	} catch (e) {
 		if (!(e instanceof DomainError)) throw e;
 		// A refused submit still saved the draft; the field's message also shows beside it.
